@@ -1,0 +1,153 @@
+"""Units at the edges: one pint registry; internal units are N, mm and MPa.
+
+Input values may be given in any unit pint knows (SI or US customary). They are converted
+to the internal unit of their kind once, on entry; display and reports convert back.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from typing import Literal
+
+import pint
+
+from core.errors import UnitError
+
+ureg = pint.UnitRegistry()
+Q_ = ureg.Quantity
+
+UnitSystem = Literal["si", "us"]
+
+#: internal unit of each quantity kind
+INTERNAL: dict[str, str] = {
+    "length": "mm",
+    "area": "mm**2",
+    "first_moment": "mm**3",
+    "section_modulus": "mm**3",
+    "inertia": "mm**4",
+    "force": "N",
+    "force_per_length": "N/mm",
+    "stress": "MPa",
+    "moment": "N*mm",
+    "dimensionless": "dimensionless",
+}
+
+#: display unit of each kind, per unit system
+DISPLAY: dict[UnitSystem, dict[str, str]] = {
+    "si": {
+        "length": "mm",
+        "area": "mm**2",
+        "first_moment": "mm**3",
+        "section_modulus": "mm**3",
+        "inertia": "mm**4",
+        "force": "kN",
+        "force_per_length": "N/mm",
+        "stress": "MPa",
+        "moment": "kN*m",
+        "dimensionless": "dimensionless",
+    },
+    "us": {
+        "length": "in",
+        "area": "in**2",
+        "first_moment": "in**3",
+        "section_modulus": "in**3",
+        "inertia": "in**4",
+        "force": "kip",
+        "force_per_length": "kip/in",
+        "stress": "ksi",
+        "moment": "kip*ft",
+        "dimensionless": "dimensionless",
+    },
+}
+
+#: short printable symbols for display units
+SYMBOL: dict[str, str] = {
+    "mm": "mm",
+    "mm**2": "mm²",
+    "mm**3": "mm³",
+    "mm**4": "mm⁴",
+    "N": "N",
+    "kN": "kN",
+    "N/mm": "N/mm",
+    "MPa": "MPa",
+    "N*mm": "N·mm",
+    "kN*m": "kN·m",
+    "in": "in",
+    "in**2": "in²",
+    "in**3": "in³",
+    "in**4": "in⁴",
+    "kip": "kip",
+    "kip/in": "kip/in",
+    "ksi": "ksi",
+    "kip*ft": "kip·ft",
+    "dimensionless": "",
+}
+
+
+def to_internal(value: float, unit: str, kind: str, *, where: str = "") -> float:
+    """Convert ``value`` given in ``unit`` to the internal unit of ``kind``.
+
+    Args:
+        value: the number as entered.
+        unit: any unit string pint understands, e.g. ``"in"``, ``"mm"``, ``"ksi"``.
+        kind: a key of :data:`INTERNAL` (``"length"``, ``"stress"``, ...).
+        where: the place the value came from, for error messages.
+
+    Raises:
+        UnitError: unknown unit, a unit of the wrong dimension, or a non-finite value.
+    """
+    if kind not in INTERNAL:
+        raise UnitError(f"unknown quantity kind {kind!r}; known: {sorted(INTERNAL)}", where=where)
+    try:
+        v = float(value)
+    except (TypeError, ValueError):
+        raise UnitError(f"{value!r} is not a number", where=where) from None
+    if not math.isfinite(v):
+        raise UnitError(f"{value!r} is not a finite number", where=where)
+    try:
+        q = Q_(v, unit)
+        return float(q.to(INTERNAL[kind]).magnitude)
+    except pint.errors.UndefinedUnitError:
+        raise UnitError(f"unknown unit {unit!r}", where=where) from None
+    except pint.errors.DimensionalityError:
+        raise UnitError(
+            f"unit {unit!r} is not a {kind.replace('_', ' ')} unit "
+            f"(expected something convertible to {INTERNAL[kind]})",
+            where=where,
+        ) from None
+
+
+def from_internal(value: float, kind: str, unit: str) -> float:
+    """Convert an internal ``value`` of ``kind`` to ``unit``."""
+    return float(Q_(value, INTERNAL[kind]).to(unit).magnitude)
+
+
+def display_unit(kind: str, system: UnitSystem) -> str:
+    """The display unit of ``kind`` in ``system`` (``"si"`` or ``"us"``)."""
+    if system not in DISPLAY:
+        raise UnitError(f"unknown unit system {system!r}; allowed: 'si', 'us'")
+    return DISPLAY[system][kind]
+
+
+def symbol(unit: str) -> str:
+    """A short printable symbol for ``unit``."""
+    return SYMBOL.get(unit, unit)
+
+
+@dataclass(frozen=True)
+class Shown:
+    """A value converted for display: number, unit string and printable symbol."""
+
+    value: float
+    unit: str
+
+    @property
+    def symbol(self) -> str:
+        return symbol(self.unit)
+
+
+def show(value: float, kind: str, system: UnitSystem) -> Shown:
+    """Convert an internal value of ``kind`` to the display unit of ``system``."""
+    unit = display_unit(kind, system)
+    return Shown(from_internal(value, kind, unit), unit)
