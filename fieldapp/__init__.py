@@ -1,0 +1,1 @@
+"""asfound field app (kivy) over the core engine. It computes nothing itself."""
