@@ -97,7 +97,7 @@ class StationSection:
         )
 
     def shear_flow(self, line_id: str, V: float) -> float:
-        """Shear flow q = V Q_out / I (N/mm) carried by all the lines of one interface.
+        """Magnitude of the shear flow q = V Q_out / I (N/mm) across one interface (all its lines).
 
         Args:
             line_id: a rivet line of the definition; its ``outside`` parts define Q_out.
@@ -114,7 +114,7 @@ class StationSection:
             )
         if not self.shear_applicable:
             raise GeometryError(self.finding, where=self.where)
-        return shear_flow(V, self.gross.Q_of(line.outside), self.gross.props.Ix)
+        return abs(shear_flow(V, self.gross.Q_of(line.outside), self.gross.props.Ix))
 
     @property
     def where(self) -> str:

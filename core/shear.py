@@ -79,13 +79,20 @@ class WidthProfile:
         """Heights (mm) where the width may change: every vertex height."""
         return self.U + self.yc
 
+    def _snap(self, u: np.ndarray) -> np.ndarray:
+        """Heights within 1e-7 mm of a break height are taken as that height, so that a
+        height given as, say, 0.75 in converted to mm finds the break built from it."""
+        j = np.clip(np.searchsorted(self.U, u), 1, len(self.U) - 1)
+        lo, hi = self.U[j - 1], self.U[j]
+        near = np.where(np.abs(u - lo) <= np.abs(hi - u), lo, hi)
+        return np.where(np.abs(u - near) <= 1e-7, near, u)
+
     def _interval(self, u: np.ndarray, side: Side) -> np.ndarray:
-        k = np.searchsorted(self.U, u, side="right" if side == "above" else "left") - 1
-        return k
+        return np.searchsorted(self.U, u, side="right" if side == "above" else "left") - 1
 
     def width(self, y, side: Side = "above") -> np.ndarray:
         """Cut width t (mm) at heights ``y`` (mm): the limit from ``side``; 0 outside."""
-        u = np.atleast_1d(np.asarray(y, dtype=float)) - self.yc
+        u = self._snap(np.atleast_1d(np.asarray(y, dtype=float)) - self.yc)
         k = self._interval(u, side)
         ok = (k >= 0) & (k < len(self.a))
         kk = np.clip(k, 0, len(self.a) - 1)
