@@ -1,0 +1,320 @@
+"""The survey record: a survey, its members, stations and readings (pydantic v2 models).
+
+The models mirror the interchange document (``asfound.survey`` version 1) one to one, so
+``Survey.model_validate(doc).model_dump(mode="json")`` gives the document back. Values are
+kept **as entered**, each with its unit; the engine objects (mm, N, MPa) come only from the
+accessors :meth:`Member.definition` and :meth:`Station.loss`.
+
+Units of the document:
+    ``survey.length_unit`` (e.g. "mm" or "in"): the cross-section, loss bands, perforations.
+    ``survey.position_unit`` (e.g. "m" or "ft"): positions along a member (stations, rivets).
+    Readings, span, stiffener spacing, material and loads carry their own units.
+"""
+
+from __future__ import annotations
+
+import math
+from typing import Any, Literal
+
+from pydantic import BaseModel, ConfigDict, Field, PrivateAttr
+
+from core.definition import SectionDefinition, StationLoss
+from core.errors import where as join
+from core.sectionfile import definition_from_dict
+from core.units import to_internal
+
+FORMAT = "asfound.survey"
+VERSION = 1
+
+RivetStateName = Literal["sound", "loose", "missing", "headless"]
+RIVET_STATES: tuple[str, ...] = ("sound", "loose", "missing", "headless")
+Policy = Literal["mean", "minimum"]
+
+
+class _Model(BaseModel):
+    model_config = ConfigDict(extra="forbid", allow_inf_nan=False, validate_assignment=True)
+
+
+class Quantity(_Model):
+    """A number with the unit it was entered in."""
+
+    value: float
+    unit: str = Field(min_length=1)
+
+    def to(self, kind: str, where: str = "") -> float:
+        """The value in the internal unit of ``kind`` (see :data:`core.units.INTERNAL`).
+
+        Raises:
+            UnitError: unknown unit or a unit of the wrong kind.
+        """
+        return to_internal(self.value, self.unit, kind, where=where)
+
+
+class Material(_Model):
+    """Steel properties given by the engineer: yield Fy, tensile Fu, modulus E."""
+
+    Fy: Quantity
+    Fu: Quantity | None = None
+    E: Quantity | None = None
+
+
+class Effect(_Model):
+    """A load effect at a station: shear V and bending moment M (either may be absent)."""
+
+    V: Quantity | None = None
+    M: Quantity | None = None
+
+
+class StationLoads(_Model):
+    """Unfactored load effects at a station: dead load of components (DC), of wearing
+    surface and utilities (DW), and live load with dynamic allowance (LL_IM)."""
+
+    DC: Effect | None = None
+    DW: Effect | None = None
+    LL_IM: Effect | None = None
+
+
+class Axle(_Model):
+    """One axle of a load train: its load and its distance from the previous axle."""
+
+    load: Quantity
+    spacing: Quantity
+
+
+class SimpleSpan(_Model):
+    """Loads on a simply supported member when no station effects are given.
+
+    ``dc`` and ``dw`` are uniform dead loads (force per length) on this member; ``axles``
+    a train of axle loads (first spacing ignored), ``im`` the dynamic load allowance as a
+    fraction (0.33 for 33 %), ``distribution`` the share of one train carried by the member.
+    """
+
+    dc: Quantity
+    dw: Quantity | None = None
+    axles: list[Axle] = Field(default_factory=list)
+    im: float = Field(default=0.0, ge=0.0, le=1.0)
+    distribution: float = Field(default=1.0, gt=0.0, le=4.0)
+
+
+class RivetRun(_Model):
+    """Rivets at a regular ``pitch`` from ``start`` to ``end`` (position unit), all ``state``."""
+
+    start: float
+    end: float
+    pitch: float = Field(gt=0.0)
+    state: RivetStateName = "sound"
+
+
+class RivetAt(_Model):
+    """The state of the rivet at ``position`` (position unit) along the member."""
+
+    position: float
+    state: RivetStateName
+
+
+class RivetLineStates(_Model):
+    """Rivet states along one rivet line of the section: a run plus exceptions, or a list."""
+
+    line: str = Field(min_length=1)
+    run: RivetRun | None = None
+    states: list[RivetAt] = Field(default_factory=list)
+
+    def expanded(self) -> list[tuple[float, str]]:
+        """Every rivet as (position, state), sorted, in the position unit; an exception at
+        the position of a run rivet (within 1 % of the pitch) replaces it."""
+        out: dict[float, str] = {}
+        tol = 1e-9
+        if self.run is not None:
+            r = self.run
+            n = math.floor((r.end - r.start) / r.pitch + 1e-9)
+            for k in range(max(n, -1) + 1):
+                out[round(r.start + k * r.pitch, 9)] = r.state
+            tol = 0.01 * r.pitch
+        for s in self.states:
+            hit = next((p for p in out if abs(p - s.position) <= tol), None)
+            out[hit if hit is not None else s.position] = s.state
+        return sorted(out.items())
+
+
+class Reading(_Model):
+    """One thickness reading on a part.
+
+    ``region`` is ``None`` for the whole part, ``"h"``/``"v"`` for one leg of an angle, or
+    the id of a loss band at the same station. ``location`` says where on the part (free
+    text), ``face`` which side it was taken from, ``time`` an ISO date-time.
+    """
+
+    id: str = Field(min_length=1)
+    part: str = Field(min_length=1)
+    region: str | None = None
+    location: str = ""
+    value: float
+    unit: str = Field(min_length=1)
+    instrument: str = ""
+    face: str = ""
+    time: str = ""
+    who: str = ""
+
+    def mm(self, where: str = "") -> float:
+        """The reading in mm (raises UnitError for a unit that is not a length)."""
+        return to_internal(self.value, self.unit, "length", where=where)
+
+
+class Band(_Model):
+    """A loss band on a plate from ``lo`` to ``hi`` (length unit, section coordinates along
+    the plate width: heights for a web). Its remaining thickness is ``t`` (length unit) or,
+    when ``t`` is absent, the readings whose region is this band's id."""
+
+    id: str = Field(min_length=1)
+    part: str = Field(min_length=1)
+    lo: float
+    hi: float
+    t: float | None = None
+    note: str = ""
+
+
+class Perforation(_Model):
+    """A hole through a plate from ``lo`` to ``hi`` (length unit) along its width."""
+
+    id: str = Field(min_length=1)
+    part: str = Field(min_length=1)
+    lo: float
+    hi: float
+    note: str = ""
+
+
+class Station(_Model):
+    """A place along a member where the section was measured."""
+
+    id: str = Field(min_length=1)
+    position: float
+    loads: StationLoads | None = None
+    readings: list[Reading] = Field(default_factory=list)
+    bands: list[Band] = Field(default_factory=list)
+    perforations: list[Perforation] = Field(default_factory=list)
+    notes: str = ""
+    photos: list[str] = Field(default_factory=list)
+
+    def position_mm(self, member: Member) -> float:
+        """Position along the member in mm."""
+        return to_internal(
+            self.position, member.position_unit, "length", where=member.place(self.id)
+        )
+
+    def loss(self, member: Member, policy: Policy = "mean") -> StationLoss:
+        """The section loss at this station (mm) for the engine.
+
+        Thickness per part region comes from the readings (``policy`` "mean" by default or
+        "minimum", capped at nominal, see :mod:`core.survey.readings`), plus bands and
+        perforations converted to mm.
+
+        Raises:
+            InputError / UnitError / GeometryError: readings that cannot be used.
+        """
+        from core.survey.readings import station_loss
+
+        return station_loss(self, member, policy)
+
+
+class Member(_Model):
+    """A built-up member: its as-built section (a ``core.sectionfile`` section object in
+    the survey's length unit), span, stiffener spacing ``do`` (None = unstiffened),
+    rivet states per line, optional simple-span loads, and its stations."""
+
+    id: str = Field(min_length=1)
+    label: str = ""
+    span: Quantity
+    do: Quantity | None = None
+    section: dict[str, Any]
+    rivets: list[RivetLineStates] = Field(default_factory=list)
+    simple_span: SimpleSpan | None = None
+    stations: list[Station] = Field(default_factory=list)
+
+    _length_unit: str = PrivateAttr(default="mm")
+    _position_unit: str = PrivateAttr(default="m")
+
+    @property
+    def length_unit(self) -> str:
+        return self._length_unit
+
+    @property
+    def position_unit(self) -> str:
+        return self._position_unit
+
+    def place(self, station: str | None = None, *more: str) -> str:
+        """A place string: ``member 'G1' / station 'S2' / ...``."""
+        return join(f"member {self.id!r}", f"station {station!r}" if station else None, *more)
+
+    def definition(self) -> SectionDefinition:
+        """The as-built section in mm (via :func:`core.sectionfile.definition_from_dict`).
+
+        Raises:
+            SchemaError / GeometryError / UnitError: the section object is not valid.
+        """
+        sec = dict(self.section)
+        sec.setdefault("name", self.label or self.id)
+        return definition_from_dict(sec, self._length_unit, self.place())
+
+    def span_mm(self) -> float:
+        return self.span.to("length", self.place() + " / span")
+
+    def do_mm(self) -> float | None:
+        """Stiffener spacing in mm, or None when the web is unstiffened."""
+        return None if self.do is None else self.do.to("length", self.place() + " / do")
+
+    def station(self, station_id: str) -> Station:
+        for s in self.stations:
+            if s.id == station_id:
+                return s
+        raise KeyError(station_id)
+
+    def rivet_states(self, line: str) -> list[tuple[float, str]]:
+        """Every rivet of ``line`` as (position in mm, state), sorted by position."""
+        out: list[tuple[float, str]] = []
+        for r in self.rivets:
+            if r.line == line:
+                out += [(to_internal(p, self._position_unit, "length"), s) for p, s in r.expanded()]
+        return sorted(out)
+
+
+class SurveyHeader(_Model):
+    """Who, what, where and when, plus the engineer's choices for the whole survey."""
+
+    id: str = Field(min_length=1)
+    title: str = ""
+    structure: str = ""
+    location: str = ""
+    owner_ref: str = ""
+    inspector: str = ""
+    dates: list[str] = Field(default_factory=list)
+    unit_system: Literal["si", "us"] = "si"
+    standard: Literal["aashto", "aisc", "en1993"] = "aashto"
+    material: Material | None = None
+    year_built: int | None = None
+    length_unit: str = "mm"
+    position_unit: str = "m"
+
+
+class Survey(_Model):
+    """The whole survey document (format ``asfound.survey``, version 1)."""
+
+    format: Literal["asfound.survey"] = FORMAT
+    version: Literal[1] = VERSION
+    note: str = ""
+    survey: SurveyHeader
+    members: list[Member] = Field(default_factory=list)
+
+    def model_post_init(self, __context: Any) -> None:
+        for m in self.members:
+            m._length_unit = self.survey.length_unit
+            m._position_unit = self.survey.position_unit
+
+    def member(self, member_id: str) -> Member:
+        for m in self.members:
+            if m.id == member_id:
+                return m
+        raise KeyError(member_id)
+
+    def document(self) -> dict[str, Any]:
+        """The interchange document (plain JSON types)."""
+        return self.model_dump(mode="json")

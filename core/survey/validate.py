@@ -1,0 +1,435 @@
+"""Validation of a survey: every problem at once, each with its place.
+
+Two stages. The structure of the document is checked against the published JSON Schema
+(``core/schema/survey-1.schema.json``) and the model; an item that fails (a reading with a
+text value, say) is reported and set aside so that the rest can still be checked. Then the
+meaning is checked: part ids, positions within the member, perforations within their plate,
+thickness ranges, units, and the plausibility warnings of :mod:`core.survey.readings`.
+"""
+
+from __future__ import annotations
+
+import copy
+import datetime as _dt
+import json
+import math
+from functools import lru_cache
+from pathlib import Path
+from typing import Any
+
+import jsonschema
+from pydantic import ValidationError
+
+from core.definition import SectionDefinition
+from core.errors import AsfoundError
+from core.errors import where as join
+from core.parts import Angle, Plate
+from core.survey.model import FORMAT, VERSION, Member, Reading, Station, Survey
+from core.survey.problems import Problem
+from core.survey.readings import plausibility, region_stats
+from core.units import to_internal
+
+SCHEMA_PATH = Path(__file__).resolve().parent.parent / "schema" / "survey-1.schema.json"
+ABSURD_MM = 500.0  # no plate of a riveted or bolted member is half a metre thick
+_MAX_SPAN_MM = 300_000.0
+
+
+@lru_cache(maxsize=1)
+def schema() -> dict:
+    """The JSON Schema (draft 2020-12) of the survey document, version 1."""
+    return json.loads(SCHEMA_PATH.read_text(encoding="utf-8"))
+
+
+def place_of(doc: Any, path: tuple | list) -> str:
+    """Translate a path in the document into a place: ``member 'G1' / station 'S3' / ...``."""
+    out: list[str] = []
+    node = doc
+    names = {"members": "member", "stations": "station", "readings": "reading", "bands": "band"}
+    names |= {"perforations": "perforation", "rivets": "rivet line", "axles": "axle"}
+    key: Any = None
+    for step in path:
+        try:
+            child = node[step]
+        except (KeyError, IndexError, TypeError):
+            out.append(str(step))
+            break
+        if isinstance(step, int) and key in names:
+            ident = (
+                child.get("line" if key == "rivets" else "id") if isinstance(child, dict) else None
+            )
+            out.append(
+                f"{names[key]} {ident!r}" if ident is not None else f"{names[key]} #{step + 1}"
+            )
+        elif isinstance(step, str) and step not in names:
+            out.append(step)
+        key, node = step, child
+    return join(*out)
+
+
+def _prune(doc: dict, paths: list[tuple]) -> bool:
+    """Remove from ``doc`` the innermost list item on each path; False if one has none."""
+    cuts: set[tuple] = set()
+    for p in paths:
+        idx = [i for i, s in enumerate(p) if isinstance(s, int)]
+        if not idx:
+            return False
+        cuts.add(tuple(p[: idx[-1] + 1]))
+    for cut in sorted(cuts, key=lambda c: (len(c), c[-1]), reverse=True):
+        node: Any = doc
+        for s in cut[:-1]:
+            node = node[s]
+        if isinstance(node, list) and cut[-1] < len(node):
+            del node[cut[-1]]
+    return True
+
+
+def check_document(doc: Any, where: str = "") -> tuple[Survey | None, list[Problem]]:
+    """Check a survey document (parsed JSON). Returns the model (None if it cannot be built)
+    and every problem found."""
+    probs: list[Problem] = []
+    if not isinstance(doc, dict) or doc.get("format") != FORMAT:
+        return None, [
+            Problem("error", f"not an asfound survey (expected format {FORMAT!r})", where)
+        ]
+    ver = doc.get("version")
+    if not isinstance(ver, int) or isinstance(ver, bool) or ver < 1:
+        return None, [Problem("error", f"version {ver!r} is not a version number", where)]
+    if ver > VERSION:
+        msg = f"version {ver} is newer than this asfound reads (1 to {VERSION}); update asfound"
+        return None, [Problem("error", msg, where)]
+    work = copy.deepcopy(doc)
+    validator = jsonschema.Draft202012Validator(schema())
+    errs = sorted(validator.iter_errors(work), key=lambda e: list(map(str, e.absolute_path)))
+    for e in errs:
+        path = tuple(e.absolute_path)
+        probs.append(Problem("error", e.message, join(where, place_of(doc, path))))
+    model: Survey | None = None
+    if not errs or _prune(work, [tuple(e.absolute_path) for e in errs]):
+        for _ in range(10):
+            try:
+                model = Survey.model_validate(work)
+                break
+            except ValidationError as ve:
+                locs = [tuple(x["loc"]) for x in ve.errors()]
+                for x in ve.errors():
+                    probs.append(Problem("error", x["msg"], join(where, place_of(work, x["loc"]))))
+                if not _prune(work, locs):
+                    break
+    if model is None:
+        probs.append(Problem("note", "the meaning of the survey was not checked", where))
+        return None, probs
+    return model, probs + check_survey(model, where)
+
+
+def _kind(value: float, unit: str, kind: str, w: str, probs: list[Problem]) -> float | None:
+    try:
+        return to_internal(value, unit, kind, where=w)
+    except AsfoundError as e:
+        probs.append(Problem("error", str(e).removeprefix(f"{w}: "), w))
+        return None
+
+
+def _range(v: float | None, lo: float, hi: float, name: str, unit: str, w: str, probs) -> None:
+    if v is not None and not lo <= v <= hi:
+        probs.append(
+            Problem("error", f"{name} = {v:g} {unit} is outside {lo:g} to {hi:g} {unit}", w)
+        )
+
+
+def _dupes(ids: list[str], what: str, w: str) -> list[Problem]:
+    d = sorted({i for i in ids if ids.count(i) > 1})
+    return [Problem("error", f"duplicate {what} ids {d}", w)] if d else []
+
+
+def check_survey(s: Survey, where: str = "") -> list[Problem]:
+    """Every problem of meaning in a survey model (the structure is already valid)."""
+    h = s.survey
+    probs: list[Problem] = []
+    w = join(where, "survey")
+    _kind(1.0, h.length_unit, "length", join(w, "length_unit"), probs)
+    _kind(1.0, h.position_unit, "length", join(w, "position_unit"), probs)
+    for d in h.dates:
+        try:
+            _dt.date.fromisoformat(d)
+        except ValueError:
+            probs.append(Problem("error", f"date {d!r} is not YYYY-MM-DD", join(w, "dates")))
+    if h.material is not None:
+        m = h.material
+        fy = _kind(m.Fy.value, m.Fy.unit, "stress", join(w, "material", "Fy"), probs)
+        _range(fy, 100.0, 1000.0, "Fy", "MPa", join(w, "material", "Fy"), probs)
+        if m.Fu is not None:
+            fu = _kind(m.Fu.value, m.Fu.unit, "stress", join(w, "material", "Fu"), probs)
+            _range(
+                fu, fy or 100.0, 2000.0, "Fu", "MPa (Fy up to)", join(w, "material", "Fu"), probs
+            )
+        if m.E is not None:
+            e = _kind(m.E.value, m.E.unit, "stress", join(w, "material", "E"), probs)
+            _range(e, 150_000.0, 250_000.0, "E", "MPa", join(w, "material", "E"), probs)
+    if h.year_built is not None:
+        _range(
+            h.year_built,
+            1800,
+            _dt.date.today().year,
+            "year_built",
+            "",
+            join(w, "year_built"),
+            probs,
+        )
+    if h.material is None and h.year_built is None:
+        probs.append(
+            Problem("warning", "neither material nor year built given: set Fy before assessment", w)
+        )
+    probs += _dupes([m.id for m in s.members], "member", where)
+    for m in s.members:
+        probs += check_member(m, where)
+    return probs
+
+
+def check_member(m: Member, where: str = "") -> list[Problem]:
+    """Problems of one member: span, section, rivet states, loads, and every station."""
+    probs: list[Problem] = []
+    w = join(where, m.place())
+    L = _kind(m.span.value, m.span.unit, "length", join(w, "span"), probs)
+    _range(L, 1.0, _MAX_SPAN_MM, "span", "mm", join(w, "span"), probs)
+    if m.do is not None:
+        do = _kind(m.do.value, m.do.unit, "length", join(w, "do"), probs)
+        _range(
+            do,
+            1.0,
+            L or _MAX_SPAN_MM,
+            "stiffener spacing do",
+            "mm (up to the span)",
+            join(w, "do"),
+            probs,
+        )
+    defn: SectionDefinition | None = None
+    try:
+        defn = m.definition()
+    except AsfoundError as e:
+        probs.append(Problem("error", f"section: {e}", w))
+    pos_unit = m.position_unit
+    for r in m.rivets:
+        wl = join(w, f"rivet line {r.line!r}")
+        if defn is not None and r.line not in {x.id for x in defn.rivet_lines}:
+            known = [x.id for x in defn.rivet_lines]
+            probs.append(Problem("error", f"unknown rivet line {r.line!r}; known: {known}", wl))
+        if r.run is not None and r.run.end < r.run.start:
+            probs.append(
+                Problem("error", f"run end {r.run.end:g} is before start {r.run.start:g}", wl)
+            )
+        if L is None:
+            continue
+        for p, _state in r.expanded():
+            x = _kind(p, pos_unit, "length", wl, probs)
+            if x is not None and not -1e-6 <= x <= L + 1e-6:
+                probs.append(
+                    Problem(
+                        "error",
+                        f"rivet at {p:g} {pos_unit} is beyond the member (0 to "
+                        f"{L / to_internal(1.0, pos_unit, 'length'):g} {pos_unit})",
+                        wl,
+                    )
+                )
+    if m.simple_span is not None:
+        ss, ws = m.simple_span, join(w, "simple_span")
+        _kind(ss.dc.value, ss.dc.unit, "force_per_length", join(ws, "dc"), probs)
+        if ss.dw is not None:
+            _kind(ss.dw.value, ss.dw.unit, "force_per_length", join(ws, "dw"), probs)
+        for i, a in enumerate(ss.axles, start=1):
+            wa = join(ws, f"axle #{i}")
+            _range(
+                _kind(a.load.value, a.load.unit, "force", wa, probs),
+                0.0,
+                1e7,
+                "load",
+                "N",
+                wa,
+                probs,
+            )
+            _range(
+                _kind(a.spacing.value, a.spacing.unit, "length", wa, probs),
+                0.0,
+                1e5,
+                "spacing",
+                "mm",
+                wa,
+                probs,
+            )
+    probs += _dupes([s.id for s in m.stations], "station", w)
+    for st in m.stations:
+        probs += check_station(m, defn, st, L, where)
+    return probs
+
+
+def check_station(
+    m: Member, defn: SectionDefinition | None, st: Station, L: float | None, where: str = ""
+) -> list[Problem]:
+    """Problems of one station: position, loads, readings, bands, perforations."""
+    probs: list[Problem] = []
+    w = join(where, m.place(st.id))
+    x = _kind(st.position, m.position_unit, "length", join(w, "position"), probs)
+    if x is not None and L is not None and not -1e-6 <= x <= L + 1e-6:
+        Lp = L / to_internal(1.0, m.position_unit, "length")
+        probs.append(
+            Problem(
+                "error",
+                f"station position {st.position:g} {m.position_unit} is outside the member "
+                f"(0 to {Lp:g} {m.position_unit})",
+                join(w, "position"),
+            )
+        )
+    if st.loads is not None:
+        for name in ("DC", "DW", "LL_IM"):
+            eff = getattr(st.loads, name)
+            if eff is None:
+                continue
+            if eff.V is not None:
+                _kind(eff.V.value, eff.V.unit, "force", join(w, "loads", name, "V"), probs)
+            if eff.M is not None:
+                _kind(eff.M.value, eff.M.unit, "moment", join(w, "loads", name, "M"), probs)
+    probs += _dupes([r.id for r in st.readings], "reading", w)
+    probs += _dupes([b.id for b in st.bands], "band", w)
+    probs += _dupes([p.id for p in st.perforations], "perforation", w)
+    if defn is None:
+        return probs
+    bands = {b.id: b for b in st.bands}
+    good: dict[tuple[str, str | None], list[float]] = {}
+    for r in st.readings:
+        rp = check_reading(m, defn, st, r, where)
+        probs += rp
+        if not any(p.level == "error" for p in rp):
+            good.setdefault((r.part, r.region), []).append(r.mm())
+    for (part, region), vals in good.items():
+        wr = join(w, f"part {part!r}", f"region {region!r}" if region else None)
+        probs += region_stats(vals, defn.part(part).t, part=part, region=region, where=wr).notes
+    lu = m.length_unit
+    for kind, items in (("band", st.bands), ("perforation", st.perforations)):
+        for b in items:
+            probs += _check_cut(m, defn, kind, b, w, lu, good)
+    for b in bands.values():
+        if b.id in ("h", "v"):
+            probs.append(
+                Problem(
+                    "error",
+                    "a band id may not be 'h' or 'v' (angle legs)",
+                    join(w, f"band {b.id!r}"),
+                )
+            )
+    return probs
+
+
+def _check_cut(m, defn, kind, b, w, lu, good) -> list[Problem]:
+    probs: list[Problem] = []
+    wb = join(w, f"{kind} {b.id!r}")
+    try:
+        part = defn.part(b.part)
+    except AsfoundError:
+        known = [p.id for p in defn.parts]
+        return [Problem("error", f"unknown part id {b.part!r}; known parts: {known}", wb)]
+    if not isinstance(part, Plate):
+        return [Problem("error", f"part {b.part!r} is an angle; a {kind} must lie on a plate", wb)]
+    lo = _kind(b.lo, lu, "length", join(wb, "lo"), probs)
+    hi = _kind(b.hi, lu, "length", join(wb, "hi"), probs)
+    if lo is None or hi is None:
+        return probs
+    a0, a1 = part.long_range
+    f = to_internal(1.0, lu, "length")
+    rng = f"{a0 / f:g} to {a1 / f:g} {lu}"
+    if not hi > lo:
+        probs.append(Problem("error", f"hi = {b.hi:g} {lu} must be above lo = {b.lo:g} {lu}", wb))
+    elif lo < a0 - 1e-6 or hi > a1 + 1e-6:
+        what = (
+            "perforation outside its plate" if kind == "perforation" else "band outside its plate"
+        )
+        probs.append(
+            Problem(
+                "error",
+                f"{what}: {b.lo:g} to {b.hi:g} {lu} is not within part {b.part!r} ({rng})",
+                wb,
+            )
+        )
+    covers = lo <= a0 + 1e-6 and hi >= a1 - 1e-6
+    if kind == "perforation" and covers:
+        probs.append(Problem("error", f"the perforation removes the whole part {b.part!r}", wb))
+    if kind == "band":
+        if b.t is None and (b.part, b.id) not in good:
+            probs.append(
+                Problem(
+                    "error",
+                    "the band has neither a thickness t nor readings with region = its id",
+                    wb,
+                )
+            )
+        if b.t is not None:
+            t = _kind(b.t, lu, "length", join(wb, "t"), probs)
+            if t is not None and (t < 0 or t > ABSURD_MM):
+                probs.append(
+                    Problem("error", f"t = {b.t:g} {lu} is outside 0 to {part.t / f:g} {lu}", wb)
+                )
+            elif t is not None and t > part.t:
+                probs.append(
+                    Problem(
+                        "warning",
+                        f"t = {b.t:g} {lu} is above the nominal "
+                        f"{part.t / f:g} {lu}: measurement or drawing error",
+                        wb,
+                    )
+                )
+            elif t == 0 and covers:
+                probs.append(Problem("error", f"the band removes the whole part {b.part!r}", wb))
+    return probs
+
+
+def check_reading(
+    m: Member, defn: SectionDefinition, st: Station, r: Reading, where: str = ""
+) -> list[Problem]:
+    """Problems of one reading: part and region known, unit a length, value in range,
+    plausibility warnings (above nominal, unit slip)."""
+    probs: list[Problem] = []
+    w = join(where, m.place(st.id), f"reading {r.id!r}")
+    known = [p.id for p in defn.parts]
+    if r.part not in known:
+        return [Problem("error", f"unknown part id {r.part!r}; known parts: {known}", w)]
+    part = defn.part(r.part)
+    bands = {b.id: b for b in st.bands}
+    if r.region is not None:
+        if r.region in ("h", "v"):
+            if not isinstance(part, Angle):
+                probs.append(
+                    Problem(
+                        "error",
+                        f"region {r.region!r} is an angle leg, but part {r.part!r} is a plate",
+                        w,
+                    )
+                )
+        elif r.region not in bands:
+            probs.append(
+                Problem(
+                    "error",
+                    f"region {r.region!r} is not 'h', 'v' nor a band id at "
+                    f"this station (bands: {sorted(bands)})",
+                    w,
+                )
+            )
+        elif bands[r.region].part != r.part:
+            probs.append(
+                Problem(
+                    "error",
+                    f"band {r.region!r} lies on part {bands[r.region].part!r}, not on {r.part!r}",
+                    w,
+                )
+            )
+    v = _kind(r.value, r.unit, "length", join(w, "unit"), probs)
+    if v is None:
+        return probs
+    if not math.isfinite(v) or v <= 0.0 or v > ABSURD_MM:
+        probs.append(
+            Problem(
+                "error",
+                f"thickness {r.value:g} {r.unit} is outside the allowed range (greater than 0, up to "
+                f"{ABSURD_MM:g} mm; nominal {part.t:g} mm)",
+                w,
+            )
+        )
+        return probs
+    return probs + plausibility(r.value, r.unit, part.t, w)
