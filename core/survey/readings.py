@@ -155,7 +155,8 @@ def plausibility(value: float, unit: str, t_nominal: float, where: str = "") -> 
         out.append(
             Problem(
                 "warning",
-                f"{value:g} {unit} ({v:.2f} mm) is above the nominal thickness {t_nominal:g} mm: "
+                f"{value:g} {unit}{'' if unit == 'mm' else f' ({v:.2f} mm)'} is above the "
+                f"nominal thickness {t_nominal:g} mm: "
                 "measurement or drawing error; the value used is capped at nominal",
                 where,
             )
