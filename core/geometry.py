@@ -44,12 +44,21 @@ class Pieces:
     rects: np.ndarray
     owner: np.ndarray
     part_ids: tuple[str, ...]
+    cuts: np.ndarray | None = None
+    cut_owner: np.ndarray | None = None
 
     def __post_init__(self) -> None:
         if self.rects.ndim != 2 or self.rects.shape[1] != 4:
             raise GeometryError("pieces must be an (n, 4) array of rectangles")
         if len(self.owner) != len(self.rects):
             raise GeometryError("each piece needs exactly one owner")
+        if (self.cuts is None) != (self.cut_owner is None):
+            raise GeometryError("cuts and their owners go together")
+
+    @property
+    def has_cuts(self) -> bool:
+        """True when rivet-hole cuts are kept apart from the material (a net section)."""
+        return self.cuts is not None and len(self.cuts) > 0
 
     def of(self, part_id: str) -> np.ndarray:
         """Rectangles of one part."""
@@ -65,18 +74,27 @@ class Pieces:
         n = len(self.rects)
         if n == 0:
             return []
+        if self.has_cuts:
+            raise GeometryError("connectivity is defined for the gross section only")
         r = self.rects
         ox = np.minimum(r[:, None, 2], r[None, :, 2]) - np.maximum(r[:, None, 0], r[None, :, 0])
         oy = np.minimum(r[:, None, 3], r[None, :, 3]) - np.maximum(r[:, None, 1], r[None, :, 1])
         tol = 1e-6
         adj = ((ox > tol) & (oy >= -tol)) | ((oy > tol) & (ox >= -tol))
-        label = np.arange(n)
-        while True:
-            new = np.where(adj, label[None, :], n).min(axis=1)
-            new = np.minimum(new, label)
-            if np.array_equal(new, label):
-                break
-            label = new
+        parent = list(range(n))
+
+        def root(k: int) -> int:
+            while parent[k] != k:
+                parent[k] = parent[parent[k]]
+                k = parent[k]
+            return k
+
+        ii, jj = np.nonzero(np.triu(adj, 1))
+        for a, b in zip(ii.tolist(), jj.tolist(), strict=True):
+            ra, rb = root(a), root(b)
+            if ra != rb:
+                parent[max(ra, rb)] = min(ra, rb)
+        label = np.array([root(k) for k in range(n)])
         area = (r[:, 2] - r[:, 0]) * (r[:, 3] - r[:, 1])
         groups = []
         for lab in np.unique(label):
@@ -322,10 +340,49 @@ def build_pieces(
                 owner.append(i)
     arr = _snap(np.array(rects, dtype=float))
     own = np.array(owner, dtype=np.intp)
-    if net and defn.rivet_lines:
-        arr, own = _deduct_holes(defn, arr, own)
     keep = (arr[:, 2] - arr[:, 0] > GRID) & (arr[:, 3] - arr[:, 1] > GRID)
-    return Pieces(arr[keep], own[keep], tuple(p.id for p in defn.parts))
+    gross = Pieces(arr[keep], own[keep], tuple(p.id for p in defn.parts))
+    return net_pieces(defn, gross) if net else gross
+
+
+def net_pieces(defn: SectionDefinition, gross: Pieces, *, exact: bool = False) -> Pieces:
+    """The net section: ``gross`` with the rivet holes of every line deducted.
+
+    The material each hole removes is the intersection of the hole's rectangle with the
+    pieces of the parts it pierces. When no two such cuts overlap, they are kept apart as
+    negative areas (fast, and exact for every property); otherwise, or with ``exact``, the
+    pieces themselves are cut into smaller rectangles.
+    """
+    if not defn.rivet_lines:
+        return gross
+    holes = hole_rects(defn)
+    ids = [p.id for p in defn.parts]
+    pierce = np.zeros((len(holes), len(ids)), dtype=bool)
+    for j, line in enumerate(defn.rivet_lines):
+        pierce[j, [ids.index(pid) for pid in line.parts]] = True
+    r = gross.rects
+    x0 = np.maximum(r[:, None, 0], holes[None, :, 0])
+    y0 = np.maximum(r[:, None, 1], holes[None, :, 1])
+    x1 = np.minimum(r[:, None, 2], holes[None, :, 2])
+    y1 = np.minimum(r[:, None, 3], holes[None, :, 3])
+    hit = (x1 - x0 > GRID) & (y1 - y0 > GRID) & pierce[:, gross.owner].T
+    i, j = np.nonzero(hit)
+    cuts = np.stack([x0[i, j], y0[i, j], x1[i, j], y1[i, j]], axis=1)
+    if not exact and len(cuts) > 1:
+        ox = np.minimum(cuts[:, None, 2], cuts[None, :, 2]) - np.maximum(
+            cuts[:, None, 0], cuts[None, :, 0]
+        )
+        oy = np.minimum(cuts[:, None, 3], cuts[None, :, 3]) - np.maximum(
+            cuts[:, None, 1], cuts[None, :, 1]
+        )
+        both = (ox > GRID) & (oy > GRID)
+        np.fill_diagonal(both, False)
+        exact = bool(both.any())
+    if exact:
+        rects, owner = _deduct_holes(defn, gross.rects, gross.owner)
+        keep = (rects[:, 2] - rects[:, 0] > GRID) & (rects[:, 3] - rects[:, 1] > GRID)
+        return Pieces(rects[keep], owner[keep], gross.part_ids)
+    return Pieces(gross.rects, gross.owner, gross.part_ids, cuts, gross.owner[i])
 
 
 def hole_rects(defn: SectionDefinition) -> np.ndarray:

@@ -25,6 +25,7 @@ import shapely
 
 from core.errors import GeometryError
 from core.geometry import Pieces
+from core.shear import WidthProfile
 
 
 @dataclass(frozen=True)
@@ -43,15 +44,24 @@ class Edges:
 
     @classmethod
     def from_pieces(cls, pieces: Pieces) -> Edges:
-        r = pieces.rects
+        """Edges of the pieces (counter-clockwise) and of the hole cuts (clockwise)."""
+        r, own = pieces.rects, pieces.owner
+        if pieces.has_cuts:
+            c = pieces.cuts
+            # a clockwise rectangle: swap the x of its corners
+            r = np.concatenate([r, np.stack([c[:, 2], c[:, 1], c[:, 0], c[:, 3]], axis=1)])
+            own = np.concatenate([own, pieces.cut_owner])
         X0, Y0, X1, Y1 = r[:, 0], r[:, 1], r[:, 2], r[:, 3]
-        xs = np.stack([X0, X1, X1, X0], axis=1)
-        ys = np.stack([Y0, Y0, Y1, Y1], axis=1)
-        xe = np.roll(xs, -1, axis=1)
-        ye = np.roll(ys, -1, axis=1)
-        own = np.repeat(pieces.owner, 4)
+        xs = np.stack([X0, X1, X1, X0, X1, X1, X0, X0], axis=1)
+        ys = np.stack([Y0, Y0, Y1, Y1, Y0, Y1, Y1, Y0], axis=1)
+        # columns 0-3: edge start points; 4-7: edge end points
         return cls(
-            xs.ravel(), ys.ravel(), xe.ravel(), ye.ravel(), own, max(len(pieces.part_ids), 1)
+            xs[:, :4].ravel(),
+            ys[:, :4].ravel(),
+            xs[:, 4:].ravel(),
+            ys[:, 4:].ravel(),
+            np.repeat(own, 4),
+            max(len(pieces.part_ids), 1),
         )
 
     @classmethod
@@ -152,7 +162,12 @@ def section_properties(e: Edges) -> SectionProperties:
     Raises:
         GeometryError: the section has no area.
     """
-    from core.shear import WidthProfile  # plastic neutral axis uses the width profile
+    return properties_and_width(e)[0]
+
+
+def properties_and_width(e: Edges) -> tuple[SectionProperties, WidthProfile]:
+    """The properties and the cut-width profile about the neutral axis, computed together
+    (the plastic neutral axis is found on the width profile)."""
 
     if len(e.x0) == 0:
         raise GeometryError("the section has no material (area is zero)")
@@ -170,7 +185,7 @@ def section_properties(e: Edges) -> SectionProperties:
     y_bot = float(min(e.y0.min(), e.y1.min()))
     prof = WidthProfile.from_edges(e, yc)
     y_pna, Zx = prof.plastic(A)
-    return SectionProperties(
+    props = SectionProperties(
         A=A,
         xc=xc,
         yc=yc,
@@ -186,3 +201,4 @@ def section_properties(e: Edges) -> SectionProperties:
         rx=math.sqrt(Ix / A),
         ry=math.sqrt(Iy / A),
     )
+    return props, prof

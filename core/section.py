@@ -16,8 +16,8 @@ import numpy as np
 
 from core.definition import SectionDefinition, StationLoss
 from core.errors import GeometryError
-from core.geometry import Pieces, build_pieces, check_overlaps
-from core.properties import Edges, SectionProperties, part_areas, section_properties
+from core.geometry import Pieces, build_pieces, check_overlaps, net_pieces
+from core.properties import Edges, SectionProperties, part_areas, properties_and_width
 from core.shear import ShearProfile, WidthProfile, shear_flow
 
 
@@ -28,17 +28,20 @@ class Section:
     pieces: Pieces
     edges: Edges
     props: SectionProperties
+    width: WidthProfile
 
     @classmethod
     def from_pieces(cls, pieces: Pieces) -> Section:
         if len(pieces.rects) == 0:
             raise GeometryError("the section has no material (area is zero)")
         e = Edges.from_pieces(pieces)
-        return cls(pieces, e, section_properties(e))
+        props, width = properties_and_width(e)
+        return cls(pieces, e, props, width)
 
     @cached_property
     def profile(self) -> ShearProfile:
-        return ShearProfile(WidthProfile.from_edges(self.edges, self.props.yc), self.props.Ix)
+        """tau = V Q / (I t) through the depth of this section."""
+        return ShearProfile(self.width, self.props.Ix)
 
     @cached_property
     def part_area(self) -> dict[str, float]:
@@ -133,8 +136,8 @@ def analyse(defn: SectionDefinition, loss: StationLoss | None = None) -> Station
     """
     loss = loss if loss is not None else StationLoss()
     check_overlaps(defn)
-    gp = build_pieces(defn, loss, net=False)
+    gp = build_pieces(defn, loss)
     comps = tuple(gp.components())
     gross = Section.from_pieces(gp)
-    net = Section.from_pieces(build_pieces(defn, loss, net=True)) if defn.rivet_lines else gross
+    net = Section.from_pieces(net_pieces(defn, gp)) if defn.rivet_lines else gross
     return StationSection(defn, loss, gross, net, comps)

@@ -59,12 +59,8 @@ class WidthProfile:
         i_lo = np.searchsorted(Y, np.minimum(y0, y1))
         i_hi = np.searchsorted(Y, np.maximum(y0, y1))
         K = len(Y) - 1
-        da = np.zeros(K + 1)
-        db = np.zeros(K + 1)
-        np.add.at(da, i_lo, ca)
-        np.add.at(da, i_hi, -ca)
-        np.add.at(db, i_lo, cb)
-        np.add.at(db, i_hi, -cb)
+        da = np.bincount(i_lo, ca, K + 1) - np.bincount(i_hi, ca, K + 1)
+        db = np.bincount(i_lo, cb, K + 1) - np.bincount(i_hi, cb, K + 1)
         a = np.cumsum(da)[:K]
         b = np.cumsum(db)[:K]
         ul, uh = U[:-1], U[1:]
@@ -111,22 +107,29 @@ class WidthProfile:
         return area, mom
 
     def plastic(self, A: float) -> tuple[float, float]:
-        """Plastic neutral axis height (mm) and plastic modulus Zx (mm^3) for total area A."""
+        """Plastic neutral axis height (mm) and plastic modulus Zx (mm^3) for total area A.
+
+        The plastic neutral axis halves the area; Zx = integral of |y - y_pna| dA.
+        """
         half = 0.5 * A
         K = len(self.a)
         k = int(np.searchsorted(-self.A_above, -half, side="left")) - 1
         k = min(max(k, 0), K - 1)
-        rem = half - self.A_above[k + 1]
-        uh = self.U[k + 1]
-        t1 = self.a[k] + self.b[k] * uh
-        disc = max(t1 * t1 - 2.0 * self.b[k] * rem, 0.0)
-        den = t1 + np.sqrt(disc)
+        A_top = float(self.A_above[k + 1])
+        M_top = float(self.M_above[k + 1])
+        rem = half - A_top
+        uh, ul = float(self.U[k + 1]), float(self.U[k])
+        a, b = float(self.a[k]), float(self.b[k])
+        t1 = a + b * uh
+        disc = max(t1 * t1 - 2.0 * b * rem, 0.0)
+        den = t1 + disc**0.5
         w = 2.0 * rem / den if den > 0.0 else 0.0
-        u_p = float(np.clip(uh - w, self.U[k], uh))
-        area_up, mom_up = self.above(u_p + self.yc)
-        m_total = self.M_above[0]
-        Z = (mom_up[0] - u_p * area_up[0]) + (u_p * (A - area_up[0]) - (m_total - mom_up[0]))
-        return u_p + self.yc, float(Z)
+        u_p = min(max(uh - w, ul), uh)
+        area_up = A_top + a * (uh - u_p) + 0.5 * b * (uh * uh - u_p * u_p)
+        mom_up = M_top + 0.5 * a * (uh * uh - u_p * u_p) + b * (uh**3 - u_p**3) / 3.0
+        m_total = float(self.M_above[0])
+        Z = (mom_up - u_p * area_up) + (u_p * (A - area_up) - (m_total - mom_up))
+        return u_p + self.yc, Z
 
 
 @dataclass(frozen=True)
