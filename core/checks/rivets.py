@@ -277,3 +277,26 @@ def line_gaps(
         gap_to=None if best is None else best[2],
         n_ineffective=len(pairs) - len(eff_pos),
     )
+
+
+def shear_flow_resistance(Rr: Number, gaps: LineGaps, n_lines: int = 1) -> CheckValue:
+    """Shear flow the line can carry, q_r = n_lines Rr / longest gap, N/mm.
+
+    Zero when the line has no effective load path (fewer than two effective rivets).
+
+    Raises:
+        InputError: Rr negative or n_lines outside 1 to 8.
+    """
+    r = internal(Rr, "force", "Rr", low=0.0, low_inclusive=True)
+    if isinstance(n_lines, bool) or not isinstance(n_lines, int) or not 1 <= n_lines <= 8:
+        raise InputError(f"n_lines = {n_lines!r} is outside the allowed range (1 to 8)")
+    src = "mechanics of built-up beams (q = VQ/I), common practice"
+    if gaps.longest_gap is None:
+        return CheckValue("q_r", 0.0, "force_per_length", "no effective load path", src)
+    return CheckValue(
+        "q_r",
+        n_lines * r / gaps.longest_gap,
+        "force_per_length",
+        "shear flow resistance n_lines Rr / longest gap",
+        src,
+    )

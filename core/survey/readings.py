@@ -145,18 +145,19 @@ def plausibility(value: float, unit: str, t_nominal: float, where: str = "") -> 
                 out.append(
                     Problem(
                         "warning",
-                        f"{value:g} {unit} is {100 * r:.0f} % of the nominal {t_nominal:g} mm; "
+                        f"{value:g} {unit} is {100 * r:.0f} % of the nominal "
+                        f"{Q_(t_nominal, 'mm').to(unit).magnitude:.4g} {unit}; "
                         f"it looks like a value in {_NAMES[alt]} entered as {unit} (unit slip?)",
                         where,
                     )
                 )
                 return out
     if v > t_nominal:
+        nom = Q_(t_nominal, "mm").to(unit).magnitude
         out.append(
             Problem(
                 "warning",
-                f"{value:g} {unit}{'' if unit == 'mm' else f' ({v:.2f} mm)'} is above the "
-                f"nominal thickness {t_nominal:g} mm: "
+                f"{value:g} {unit} is above the nominal thickness {nom:.4g} {unit}: "
                 "measurement or drawing error; the value used is capped at nominal",
                 where,
             )
