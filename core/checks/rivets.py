@@ -8,7 +8,10 @@
 - Rivets of unknown grade: ASTM A502 Grade 1, Fnv = 25 ksi (172 MPa), Fnt = 45 ksi
   (310 MPa), phi = 0.75 (AISC 360-22 Appendix 5, Table A-5.3.1, from memory).
 - Force per rivet from the shear flow q: F = q gap / n_lines, gap the longest distance
-  between consecutive effective rivets of a line.
+  between consecutive effective rivets of a line. Where the rivets at an end of a line are
+  lost, the last effective rivet serves the uncovered end stretch too: use
+  :attr:`LineGaps.governing_length` (the larger of the longest gap and the longest stretch
+  served by one rivet) as the gap.
 """
 
 from __future__ import annotations
@@ -191,6 +194,13 @@ class LineGaps:
             ``None`` when fewer than two rivets are effective (no load path).
         gap_from, gap_to: where the longest gap starts and ends, mm (``None`` likewise).
         n_ineffective: how many rivets do not count.
+        longest_tributary: the longest stretch of the line served by one effective rivet
+            (from half-way to its effective neighbour, or from the line's first / last
+            rivet position when the rivets beyond it are ineffective), mm, or ``None``.
+
+    ``longest_gap`` alone can shrink when an end rivet of the line is lost (the gap it
+    closed disappears while an uncovered end stretch appears); :attr:`governing_length`,
+    the larger of the two, never does, and bounds the length each rivet serves.
     """
 
     positions: tuple[float, ...]
@@ -201,6 +211,15 @@ class LineGaps:
     gap_from: float | None
     gap_to: float | None
     n_ineffective: int
+    longest_tributary: float | None = None
+
+    @property
+    def governing_length(self) -> float | None:
+        """max(longest_gap, longest_tributary), mm: the length to multiply q by for the
+        force on the most loaded rivet (``None``: no effective load path)."""
+        if self.longest_gap is None or self.longest_tributary is None:
+            return None
+        return max(self.longest_gap, self.longest_tributary)
 
     @property
     def has_load_path(self) -> bool:
@@ -276,11 +295,19 @@ def line_gaps(
         gap_from=None if best is None else best[1],
         gap_to=None if best is None else best[2],
         n_ineffective=len(pairs) - len(eff_pos),
+        longest_tributary=None if best is None else _longest_tributary(eff_pos, pairs),
     )
 
 
+def _longest_tributary(eff: list[float], pairs: list[tuple[float, str]]) -> float:
+    """Largest stretch of the line [first rivet, last rivet] served by one effective rivet."""
+    start, end = pairs[0][0], pairs[-1][0]
+    edges = [start, *((a + b) / 2.0 for a, b in itertools.pairwise(eff)), end]
+    return max(b - a for a, b in itertools.pairwise(edges))
+
+
 def shear_flow_resistance(Rr: Number, gaps: LineGaps, n_lines: int = 1) -> CheckValue:
-    """Shear flow the line can carry, q_r = n_lines Rr / longest gap, N/mm.
+    """Shear flow the line can carry, q_r = n_lines Rr / governing length, N/mm.
 
     Zero when the line has no effective load path (fewer than two effective rivets).
 
@@ -291,12 +318,13 @@ def shear_flow_resistance(Rr: Number, gaps: LineGaps, n_lines: int = 1) -> Check
     if isinstance(n_lines, bool) or not isinstance(n_lines, int) or not 1 <= n_lines <= 8:
         raise InputError(f"n_lines = {n_lines!r} is outside the allowed range (1 to 8)")
     src = "mechanics of built-up beams (q = VQ/I), common practice"
-    if gaps.longest_gap is None:
+    L = gaps.governing_length
+    if L is None:
         return CheckValue("q_r", 0.0, "force_per_length", "no effective load path", src)
     return CheckValue(
         "q_r",
-        n_lines * r / gaps.longest_gap,
+        n_lines * r / L,
         "force_per_length",
-        "shear flow resistance n_lines Rr / longest gap",
+        "shear flow resistance n_lines Rr / governing length",
         src,
     )
