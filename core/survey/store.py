@@ -182,14 +182,15 @@ class FieldStore(StoreOps):
                     f"{p}: store layout version {ver} is newer than this asfound reads "
                     f"(1 to {CURRENT}); update asfound"
                 )
-            conn.execute("PRAGMA journal_mode=WAL")
-            conn.execute("PRAGMA synchronous=FULL")
             if ver < CURRENT:
                 backup = p.with_name(f"{p.name}.v{ver}.bak")
                 if not backup.exists():
                     dst = sqlite3.connect(str(backup))
                     conn.backup(dst)
                     dst.close()
+            conn.execute("PRAGMA journal_mode=WAL")
+            conn.execute("PRAGMA synchronous=FULL")
+            if ver < CURRENT:
                 migrate(conn, ver, _now())
             conn.execute("BEGIN IMMEDIATE")
             conn.execute("COMMIT")
@@ -304,7 +305,10 @@ class FieldStore(StoreOps):
         if station is not None:
             q += " AND station = ?"
             args.append(station)
-        return [json.loads(r[0]) for r in self._conn.execute(q + " ORDER BY seq", args)]
+        try:
+            return [json.loads(r[0]) for r in self._conn.execute(q + " ORDER BY seq", args)]
+        except ValueError as e:
+            raise StoreError(f"{self.path}: a {kind} entry is damaged ({e})") from None
 
     def to_survey(self) -> Survey:
         """The whole survey as a model (entries in the order they were made)."""
