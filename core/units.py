@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from functools import lru_cache
 from typing import Literal
 
 import pint
@@ -105,9 +106,18 @@ def to_internal(value: float, unit: str, kind: str, *, where: str = "") -> float
         raise UnitError(f"{value!r} is not a number", where=where) from None
     if not math.isfinite(v):
         raise UnitError(f"{value!r} is not a finite number", where=where)
+    return v * _factor(unit, kind, where)
+
+
+@lru_cache(maxsize=512)
+def _scale(unit: str, target: str) -> float:
+    """Factor from ``unit`` to ``target`` (all quantity kinds here are multiplicative)."""
+    return float(Q_(1.0, unit).to(target).magnitude)
+
+
+def _factor(unit: str, kind: str, where: str) -> float:
     try:
-        q = Q_(v, unit)
-        return float(q.to(INTERNAL[kind]).magnitude)
+        return _scale(str(unit), INTERNAL[kind])
     except pint.errors.UndefinedUnitError:
         raise UnitError(f"unknown unit {unit!r}", where=where) from None
     except pint.errors.DimensionalityError:
@@ -116,11 +126,13 @@ def to_internal(value: float, unit: str, kind: str, *, where: str = "") -> float
             f"(expected something convertible to {INTERNAL[kind]})",
             where=where,
         ) from None
+    except (AttributeError, TypeError, ValueError, AssertionError) as e:
+        raise UnitError(f"unit {unit!r} cannot be read ({e})", where=where) from None
 
 
 def from_internal(value: float, kind: str, unit: str) -> float:
     """Convert an internal ``value`` of ``kind`` to ``unit``."""
-    return float(Q_(value, INTERNAL[kind]).to(unit).magnitude)
+    return value * _scale(INTERNAL[kind], unit)
 
 
 def display_unit(kind: str, system: UnitSystem) -> str:

@@ -1,0 +1,154 @@
+"""Results of an assessment, carrying units, descriptions and sources for generated tables."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from core.checks.flags import Flag, Level, worst
+from core.checks.rating import RatingResult
+from core.checks.results import CapacityResult
+from core.section import StationSection
+from core.survey.readings import RegionStats
+
+
+@dataclass(frozen=True)
+class Assumption:
+    """One value the assessment used, with its source (standard and clause, "from memory",
+    "engineer's input" or "common practice, no source")."""
+
+    item: str
+    value: str
+    source: str
+
+
+@dataclass(frozen=True)
+class LimitState:
+    """One limit state at one station: capacity as-built, as-found, their ratio, rating.
+
+    Attributes:
+        key: stable identifier (``"web_shear"``, ``"flexure"``, ``"rivets:web_bottom"``).
+        name: in words. kind: quantity kind of the capacities (``"force"``, ``"moment"``).
+        built, found: the check results (None when not applicable).
+        C_built, C_found: factored capacities phi Rn in the internal unit of ``kind``.
+        demand: factored load effect at the station when loads are given.
+        rating: the rating factor result when loads are given.
+        note: why a value is missing or what was assumed here.
+    """
+
+    key: str
+    name: str
+    kind: str
+    built: CapacityResult | None
+    found: CapacityResult | None
+    C_built: float | None
+    C_found: float | None
+    demand: float | None = None
+    rating: RatingResult | None = None
+    note: str = ""
+
+    @property
+    def ratio(self) -> float | None:
+        """as-found / as-built factored capacity."""
+        if self.C_built is None or self.C_found is None or self.C_built <= 0:
+            return None
+        return self.C_found / self.C_built
+
+    @property
+    def RF(self) -> float | None:
+        return None if self.rating is None else self.rating.RF
+
+
+@dataclass(frozen=True)
+class StationResult:
+    """Everything assessed at one station."""
+
+    member: str
+    station: str
+    x: float
+    built: StationSection
+    found: StationSection
+    stats: tuple[RegionStats, ...]
+    part_loss: dict[str, float]
+    limit_states: tuple[LimitState, ...]
+    flags: tuple[Flag, ...]
+    panel: str
+    D_used: float
+    tw_found: float
+    V_demand: float | None = None
+    notes: tuple[str, ...] = ()
+
+    @property
+    def level(self) -> Level:
+        return worst(self.flags)
+
+    def limit_state(self, key: str) -> LimitState:
+        for ls in self.limit_states:
+            if ls.key == key:
+                return ls
+        raise KeyError(f"{key!r} not among {[x.key for x in self.limit_states]}")
+
+    @property
+    def governing(self) -> LimitState | None:
+        """The limit state with the lowest rating factor, else the lowest capacity ratio."""
+        rated = [ls for ls in self.limit_states if ls.RF is not None]
+        if rated:
+            return min(rated, key=lambda ls: ls.RF)
+        ratioed = [ls for ls in self.limit_states if ls.ratio is not None]
+        return min(ratioed, key=lambda ls: ls.ratio) if ratioed else None
+
+
+@dataclass(frozen=True)
+class LineSummary:
+    """A rivet line along the whole member: how many rivets are not effective, and the
+    longest gap between effective ones."""
+
+    line: str
+    n_rivets: int
+    n_ineffective: int
+    longest_gap: float | None
+    gap_from: float | None
+    gap_to: float | None
+    pitch: float
+    counts: dict[str, int]
+    positions: tuple[float, ...] = ()
+    states: tuple[str, ...] = ()
+
+
+@dataclass(frozen=True)
+class MemberResult:
+    member: str
+    label: str
+    span: float
+    stations: tuple[StationResult, ...]
+    lines: tuple[LineSummary, ...]
+    flags: tuple[Flag, ...]
+
+    @property
+    def level(self) -> Level:
+        return worst([*self.flags, *(f for s in self.stations for f in s.flags)])
+
+
+@dataclass(frozen=True)
+class Assessment:
+    """The whole assessment of a survey."""
+
+    survey_id: str
+    title: str
+    standard: str
+    standard_title: str
+    unit_system: str
+    members: tuple[MemberResult, ...]
+    assumptions: tuple[Assumption, ...]
+    problems: tuple = field(default=())
+
+    @property
+    def level(self) -> Level:
+        return max((m.level for m in self.members), default=Level.OK)
+
+    def all_flags(self) -> list[Flag]:
+        out: list[Flag] = []
+        for m in self.members:
+            out += m.flags
+            for s in m.stations:
+                out += s.flags
+        return out
