@@ -23,6 +23,7 @@ UnitSystem = Literal["si", "us"]
 #: internal unit of each quantity kind
 INTERNAL: dict[str, str] = {
     "length": "mm",
+    "position": "mm",
     "area": "mm**2",
     "first_moment": "mm**3",
     "section_modulus": "mm**3",
@@ -38,6 +39,7 @@ INTERNAL: dict[str, str] = {
 DISPLAY: dict[UnitSystem, dict[str, str]] = {
     "si": {
         "length": "mm",
+        "position": "m",
         "area": "mm**2",
         "first_moment": "mm**3",
         "section_modulus": "mm**3",
@@ -50,6 +52,7 @@ DISPLAY: dict[UnitSystem, dict[str, str]] = {
     },
     "us": {
         "length": "in",
+        "position": "ft",
         "area": "in**2",
         "first_moment": "in**3",
         "section_modulus": "in**3",
@@ -82,6 +85,8 @@ SYMBOL: dict[str, str] = {
     "kip/in": "kip/in",
     "ksi": "ksi",
     "kip*ft": "kip·ft",
+    "m": "m",
+    "ft": "ft",
     "dimensionless": "",
 }
 

@@ -72,7 +72,7 @@ def local_shear_limit_state(si: StationInput, panel: LimitState) -> LimitState |
     k_f = si.found.gross.profile.tau_max(1.0)
     if k_f[0] <= 0:
         return None
-    factor = k_b[0] / k_f[0]
+    factor = min(k_b[0] / k_f[0], 1.0)
     return LimitState(
         "web_local",
         "web shear at the thinnest cut",
@@ -253,9 +253,11 @@ def _rate_flexure(
 def rivet_limit_states(
     si: StationInput, lines: dict[str, LineSummary], opts: AssessOptions
 ) -> list[LimitState]:
-    """Each rivet line that carries shear flow: the shear force V it can transfer at the
-    station, V = q_r I / Q_out, q_r = n_lines phi Rn / gap; as-built with the nominal pitch
-    and thicknesses, as-found with the local longest effective gap and measured plies."""
+    """Each rivet line that carries shear flow: its shear flow resistance
+    q_r = n_lines phi Rn / gap (N/mm), as-built with the nominal pitch and thicknesses,
+    as-found with the local longest effective gap and the measured plies. The demand is the
+    factored shear flow q = Vu Q_out / I; the rating uses the shear force the line can
+    transfer, V = q_r I / Q_out, so that the change of I and Q with the loss counts."""
     out = []
     window = opts.gap_window or si.web.D_web
     for line in si.defn.rivet_lines:
@@ -264,35 +266,45 @@ def rivet_limit_states(
         w = f"{si.where} / rivet line {line.id!r}"
         rb = rivet_capacity(si.defn, line, None, si.material.Fu, w)
         rf = rivet_capacity(si.defn, line, si.loss_local, si.material.Fu, w)
-        I_b, Q_b = si.built.gross.props.Ix, si.built.gross.Q_of(line.outside)
-        C_b = line.n_lines * rb.Rr / line.pitch * I_b / abs(Q_b)
+        C_b = line.n_lines * rb.Rr / line.pitch
         gap, why = local_gap(lines[line.id], opts.effective_states, si.x, window, si.span)
-        note = why
         C_f = None
-        Rn_V = None
+        I_over_Q = None
         if not si.found.shear_applicable:
-            note = "not applicable: " + si.found.finding
+            why = "not applicable: " + si.found.finding.removeprefix("not applicable: ")
         elif gap is None or gap <= 0:
-            C_f, Rn_V = 0.0, 0.0
-            note = "no effective rivet on the line: no load path"
+            C_f = 0.0
+            why = "no effective rivet on the line: no load path"
         else:
-            I_f, Q_f = si.found.gross.props.Ix, abs(si.found.gross.Q_of(line.outside))
-            C_f = line.n_lines * rf.Rr / gap * I_f / Q_f
-            Rn_V = line.n_lines * rf.Rn / gap * I_f / Q_f
+            C_f = line.n_lines * rf.Rr / gap
+        if si.found.shear_applicable:
+            I_over_Q = si.found.gross.props.Ix / abs(si.found.gross.Q_of(line.outside))
         ls = LimitState(
             f"rivets:{line.id}",
             f"rivet line {line.id}",
-            "force",
+            "force_per_length",
             rb,
             rf,
             C_b,
             C_f,
-            note=f"capacity as the shear force the line can transfer, "
-            f"V = n phi Rn / gap x I / Q; {note}",
+            note=f"shear flow resistance n phi Rn / gap; {why}",
         )
         e = si.effects
-        if e is not None and e.has_shear and Rn_V is not None:
-            ls = _rate(ls, rf, Rn_V, e.V_DC, e.V_DW, e.V_LL, "force", opts, w)
+        if e is not None and e.has_shear and C_f is not None and I_over_Q is not None:
+            f = opts.rating
+            Rn_V = (C_f / rf.phi) * I_over_Q
+            r = rating_factor(
+                phi=rf.phi,
+                Rn=Rn_V,
+                DC=e.V_DC,
+                DW=e.V_DW,
+                LL_IM=e.V_LL,
+                factors=f,
+                kind="force",
+                where=w,
+            )
+            q_u = (f.gDC * e.V_DC + f.gDW * e.V_DW + f.gLL * e.V_LL) / I_over_Q
+            ls = LimitState(ls.key, ls.name, ls.kind, rb, rf, C_b, C_f, q_u, r, ls.note)
         out.append(ls)
     return out
 
@@ -311,7 +323,8 @@ def station_flags(
         if pct > 0.05:
             flags.append(flag_section_loss(f"{si.where} / part {pid!r}", min(pct, 100.0), th))
     if not si.found.shear_applicable:
-        flags.append(flag_not_applicable(f"{si.where} / shear stress VQ/It", si.found.finding))
+        reason = si.found.finding.removeprefix("not applicable: ")
+        flags.append(flag_not_applicable(f"{si.where} / shear stress VQ/It", reason))
     for ls in limit_states:
         subj = f"{si.where} / {ls.name}"
         if ls.ratio is not None:

@@ -1,0 +1,74 @@
+"""Bad input to the assessment gets a clear error naming value, range and place."""
+
+from __future__ import annotations
+
+import copy
+import json
+
+import pytest
+
+from core.assess import AssessOptions, assess
+from core.cli import main
+from core.errors import InputError, UnitError
+from tests.assess.helpers import sample_doc, survey
+
+
+def test_unknown_standard() -> None:
+    with pytest.raises(InputError, match=r"unknown standard 'bs5400'; known standards: \['aashto'"):
+        AssessOptions(standard="bs5400")
+
+
+def test_unknown_standard_on_the_command_line(capsys) -> None:
+    with pytest.raises(SystemExit):
+        main(["assess", "survey_samples/deck-girder-si.json", "--standard", "bs5400"])
+    assert "invalid choice: 'bs5400'" in capsys.readouterr().err
+
+
+def test_dead_loads_of_opposite_sign() -> None:
+    d = copy.deepcopy(sample_doc())
+    st = d["members"][0]["stations"][2]
+    st["loads"]["DC"]["V"] = {"value": 120.0, "unit": "kN"}
+    st["loads"]["DW"]["V"] = {"value": -30.0, "unit": "kN"}
+    with pytest.raises(InputError, match=r"station 'S3'.*opposite sign.*DC V = 120 kN, DW V = -30 kN"):
+        assess(survey(d))
+
+
+def test_load_in_the_wrong_unit() -> None:
+    d = copy.deepcopy(sample_doc())
+    d["members"][0]["stations"][1]["loads"]["LL_IM"]["V"] = {"value": 500.0, "unit": "kN*m"}
+    with pytest.raises(UnitError, match=r"station 'S2' / loads / LL / V.*'kN\*m' is not a force unit"):
+        assess(survey(d))
+
+
+def test_material_out_of_range() -> None:
+    d = copy.deepcopy(sample_doc())
+    d["survey"]["material"]["Fy"] = {"value": 2200, "unit": "MPa"}
+    with pytest.raises(InputError, match=r"Fy = 2200.* outside the allowed range"):
+        assess(survey(d))
+
+
+def test_bad_thresholds_and_states() -> None:
+    with pytest.raises(InputError, match="effective rivet states"):
+        AssessOptions(effective_states=("rusty",))
+    with pytest.raises(InputError, match="depth basis"):
+        AssessOptions(depth_basis="flange")
+
+
+def test_assess_json_is_stable(tmp_path, capsys) -> None:
+    assert main(["assess", "survey_samples/through-girder-us.json", "--json"]) == 0
+    doc = json.loads(capsys.readouterr().out)
+    assert doc["format"] == "asfound.assessment" and doc["version"] == 1
+    assert doc["unit_system"] == "us"
+    s = doc["members"][0]["stations"][0]
+    assert set(s) >= {"station", "x", "limit_states", "governing", "level", "flags", "properties"}
+    ls = s["limit_states"][0]
+    assert ls["as_built"]["unit"] == "kip" and ls["key"] == "web_shear"
+    assert "caution" in doc and "licensed" in doc["caution"]
+
+
+def test_assess_table_prints_every_station(capsys) -> None:
+    assert main(["assess", "survey_samples/deck-girder-si.json", "--standard", "aashto"]) == 0
+    out = capsys.readouterr().out
+    for sid in ("S1", "S4", "S8"):
+        assert f"\n{sid} " in out
+    assert "AASHTO LRFD" in out and "CAUTION" in out
