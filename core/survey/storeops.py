@@ -13,6 +13,7 @@ from typing import TYPE_CHECKING, Any
 from pydantic import ValidationError
 
 from core.errors import InputError
+from core.survey.checkitems import check_cut, check_reading
 from core.survey.model import (
     RIVET_STATES,
     Band,
@@ -24,7 +25,7 @@ from core.survey.model import (
     SurveyHeader,
 )
 from core.survey.problems import Problem, raise_errors
-from core.survey.validate import _check_cut, check_member, check_reading, check_station
+from core.survey.validate import check_member, check_station
 
 if TYPE_CHECKING:
     from core.survey.store import HistoryEntry, Saved
@@ -297,7 +298,7 @@ class StoreOps:
             self._get("station", member_id, "", station_id)
             b = _validated(cls, data, kind, _place(member_id, station_id))
             w = m.place(station_id)
-            probs = _check_cut(m, defn, kind, b, w, m.length_unit, {(b.part, b.id): [1.0]})
+            probs = check_cut(m, defn, kind, b, w, m.length_unit, {(b.part, b.id): [1.0]})
             if b.id in ("h", "v"):
                 probs.append(Problem("error", "a band id may not be 'h' or 'v' (angle legs)", w))
             raise_errors(probs, f"{kind} {b.id!r}")
