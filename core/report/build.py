@@ -1,0 +1,126 @@
+"""Build the condition report PDF: cover and cautions, one part per member, assumptions,
+edit history and the review block. Written to a temporary file and renamed into place, so a
+failed build never leaves a partial PDF."""
+
+from __future__ import annotations
+
+import os
+import tempfile
+from dataclasses import dataclass
+from pathlib import Path
+
+from reportlab.platypus import PageBreak, Paragraph
+
+from core.assess import Assessment, AssessOptions, assess
+from core.checks.flags import Level
+from core.errors import InputError
+from core.report import cover, member, notes
+from core.report.page import PageInfo, canvas_maker, document
+from core.report.source import Source, read_source
+from core.report.styles import MARGIN, Styles, esc, page_size
+from core.survey import Problem, Survey
+
+
+@dataclass(frozen=True)
+class Report:
+    """A written report: where, how many pages, the verdict, and where figures landed."""
+
+    path: Path
+    pages: int
+    level: Level
+    checksum: str
+    figures: tuple[tuple[str, int, tuple[float, float, float, float]], ...]
+    assessment: Assessment
+
+
+def story(
+    survey: Survey,
+    a: Assessment,
+    problems: list[Problem],
+    src: Source,
+    system: str,
+    width: float,
+    info: PageInfo,
+) -> list:
+    st = Styles()
+    out = cover.cover(st, survey, a, src, system, width)
+    other = [p for p in problems if not any(f"member {m.member!r}" in p.where for m in a.members)]
+    if other:
+        out.append(Paragraph("Other findings of the survey's validation", st.h2))
+        out += [Paragraph(f"<b>{esc(p.level)}</b>: {esc(p.message)}", st.small) for p in other]
+    for m in a.members:
+        out.append(PageBreak())
+        out += member.member_pages(
+            st, m, survey.member(m.member), problems, src.path, system, width, info
+        )
+    out.append(PageBreak())
+    out += notes.assumptions(st, a, system, width)
+    out += notes.history(st, src, system, width)
+    out.append(notes.review_block(st, width))
+    return out
+
+
+def render(
+    survey: Survey,
+    a: Assessment,
+    problems: list[Problem],
+    src: Source,
+    out: str | Path,
+    system: str,
+) -> Report:
+    """Write the report of an assessment to ``out`` (atomically)."""
+    out = Path(out)
+    out.parent.mkdir(parents=True, exist_ok=True)
+    size = page_size(system)
+    info = PageInfo(a.survey_id, a.title, src.checksum)
+    fd, tmp = tempfile.mkstemp(prefix=f".{out.name}.", suffix=".tmp", dir=out.parent)
+    os.close(fd)
+    try:
+        doc = document(tmp, size, info)
+        flow = story(survey, a, problems, src, system, size[0] - 2 * MARGIN, info)
+        doc.build(flow, canvasmaker=canvas_maker(info))
+        os.replace(tmp, out)
+    except BaseException:
+        Path(tmp).unlink(missing_ok=True)
+        raise
+    return Report(out, info.pages, a.level, src.checksum, tuple(info.figures), a)
+
+
+def build_report(
+    path: str | Path,
+    out: str | Path,
+    *,
+    units: str | None = None,
+    standard: str | None = None,
+    options: AssessOptions | None = None,
+) -> Report:
+    """Validate and assess the survey at ``path`` and write its condition report to ``out``.
+
+    Args:
+        path: survey file (JSON) or field store.
+        out: the PDF to write (replaced only when the new one is complete).
+        units: "si" or "us"; None takes the survey's unit system.
+        standard: a key of :data:`core.checks.STANDARDS`; None takes the survey's.
+        options: further assessment options (``standard`` overrides theirs).
+
+    Raises:
+        SchemaError: the survey fails validation (no PDF is written); InputError: a bad
+        option or file; any error of the assessment, with its place.
+    """
+    if units not in (None, "si", "us"):
+        raise InputError(f"unit system {units!r} is not 'si' or 'us'")
+    survey, problems, src = read_source(path)
+    opts = options or AssessOptions()
+    if standard is not None:
+        opts = AssessOptions(
+            standard=standard,
+            depth_basis=opts.depth_basis,
+            thickness_policy=opts.thickness_policy,
+            effective_states=opts.effective_states,
+            gap_window=opts.gap_window,
+            rating=opts.rating,
+            thresholds=opts.thresholds,
+        )
+    a = assess(survey, opts, tuple(problems))
+    system = units or survey.survey.unit_system
+    return render(survey, a, problems, src, out, system)

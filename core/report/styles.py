@@ -1,0 +1,179 @@
+"""Look of the condition report: page size, fonts, colours, paragraph and table styles.
+
+A sans-serif face with the glyphs engineers' units need (superscripts, Greek letters) is
+embedded: DejaVu Sans when the system has it, else the Bitstream Vera face shipped with
+reportlab (whose missing glyphs are spelled out by :func:`text`). The palette is our own:
+slate ink, one steel blue accent, a rust tint for section loss, and four level colours that
+always come with a shape and words (never colour alone).
+"""
+
+from __future__ import annotations
+
+import os
+from functools import lru_cache
+from xml.sax.saxutils import escape
+
+import reportlab
+from reportlab.lib import colors
+from reportlab.lib.enums import TA_LEFT
+from reportlab.lib.pagesizes import A4, LETTER
+from reportlab.lib.styles import ParagraphStyle
+from reportlab.lib.units import mm
+from reportlab.pdfbase import pdfmetrics
+from reportlab.pdfbase.ttfonts import TTFont
+from reportlab.platypus import TableStyle
+
+from core.checks.flags import Level
+
+SANS, SANS_BOLD, SANS_ITALIC = "AsfSans", "AsfSans-Bold", "AsfSans-Oblique"
+
+_DEJAVU = "/usr/share/fonts/truetype/dejavu"
+_VERA = os.path.join(os.path.dirname(reportlab.__file__), "fonts")
+_FACES = (
+    (
+        os.path.join(_DEJAVU, "DejaVuSans.ttf"),
+        os.path.join(_DEJAVU, "DejaVuSans-Bold.ttf"),
+        os.path.join(_DEJAVU, "DejaVuSans-Oblique.ttf"),
+    ),
+    (
+        os.path.join(_VERA, "Vera.ttf"),
+        os.path.join(_VERA, "VeraBd.ttf"),
+        os.path.join(_VERA, "VeraIt.ttf"),
+    ),
+)
+#: spelled-out replacements for glyphs the fallback face lacks
+_SPELL = {"⁴": "^4", "⁶": "^6", "τ": "tau", "φ": "phi", "✓": "v", "☐": "[ ]", "□": "[ ]"}
+_state = {"full": True}
+
+
+@lru_cache(maxsize=1)
+def register_fonts() -> str:
+    """Register the report's sans-serif family once; returns the regular font's file."""
+    for regular, bold, italic in _FACES:
+        if all(os.path.exists(p) for p in (regular, bold, italic)):
+            pdfmetrics.registerFont(TTFont(SANS, regular))
+            pdfmetrics.registerFont(TTFont(SANS_BOLD, bold))
+            pdfmetrics.registerFont(TTFont(SANS_ITALIC, italic))
+            pdfmetrics.registerFontFamily(
+                SANS, normal=SANS, bold=SANS_BOLD, italic=SANS_ITALIC, boldItalic=SANS_BOLD
+            )
+            _state["full"] = "DejaVu" in regular
+            return regular
+    raise RuntimeError("no sans-serif TrueType face found (reportlab's Vera is missing)")
+
+
+def text(s: object) -> str:
+    """Plain text for the canvas: glyphs the embedded face lacks are spelled out."""
+    out = str(s)
+    if not _state["full"]:
+        for a, b in _SPELL.items():
+            out = out.replace(a, b)
+    return out
+
+
+def esc(s: object) -> str:
+    """Survey text for a Paragraph: printed literally (``<``, ``>``, ``&`` escaped)."""
+    return escape(text(s))
+
+
+def page_size(system: str) -> tuple[float, float]:
+    """A4 for SI reports, US Letter for US customary ones."""
+    return LETTER if system == "us" else A4
+
+
+MARGIN = 16 * mm
+FOOTER = 14 * mm
+
+# palette (our own)
+INK = colors.HexColor("#1f2933")
+MUTED = colors.HexColor("#616e7c")
+RULE = colors.HexColor("#c5ccd3")
+BAND = colors.HexColor("#f1f4f7")
+ACCENT = colors.HexColor("#2c5f8a")
+STEEL = colors.HexColor("#8d9aa7")
+STEEL_DARK = colors.HexColor("#3e4c59")
+LOSS = colors.HexColor("#e8a36a")
+HOLE = colors.white
+PERF = colors.HexColor("#9b2c2c")
+
+LEVEL_COLOUR = {
+    Level.OK: colors.HexColor("#3b7a57"),
+    Level.WATCH: colors.HexColor("#9a7b0a"),
+    Level.REVIEW: colors.HexColor("#c0561b"),
+    Level.URGENT: colors.HexColor("#a11d2e"),
+}
+#: a shape for each level, drawn beside its words (never colour alone)
+LEVEL_MARK = {Level.OK: "○", Level.WATCH: "◇", Level.REVIEW: "△", Level.URGENT: "■"}
+
+
+class Markup(str):
+    """Text that is already Paragraph markup (everything else is escaped)."""
+
+
+def level_markup(level: Level, bold: bool = True) -> Markup:
+    """Paragraph markup of a level: its shape and its words in its colour."""
+    c = LEVEL_COLOUR[level].hexval()[2:]
+    mark = LEVEL_MARK[level] if _state["full"] else "*"
+    body = f'<font color="#{c}">{mark} {escape(level.label)}</font>'
+    return Markup(f"<b>{body}</b>" if bold else body)
+
+
+def _ps(name: str, size: float, **kw) -> ParagraphStyle:
+    base = {
+        "fontName": SANS,
+        "fontSize": size,
+        "leading": size * 1.28,
+        "textColor": INK,
+        "alignment": TA_LEFT,
+    }
+    base.update(kw)
+    return ParagraphStyle(name, **base)
+
+
+class Styles:
+    """Paragraph styles of the report (built after the fonts are registered)."""
+
+    def __init__(self) -> None:
+        register_fonts()
+        self.title = _ps("title", 20, fontName=SANS_BOLD, leading=25, spaceAfter=4)
+        self.subtitle = _ps("subtitle", 12, textColor=MUTED, leading=16, spaceAfter=10)
+        self.h1 = _ps("h1", 14, fontName=SANS_BOLD, leading=18, spaceBefore=4, spaceAfter=6)
+        self.h2 = _ps(
+            "h2", 11, fontName=SANS_BOLD, leading=14, spaceBefore=8, spaceAfter=4, textColor=ACCENT
+        )
+        self.h3 = _ps("h3", 9.5, fontName=SANS_BOLD, leading=12, spaceBefore=4, spaceAfter=3)
+        self.body = _ps("body", 9, spaceAfter=4)
+        self.small = _ps("small", 7.5)
+        self.caption = _ps("caption", 7.5, fontName=SANS_ITALIC, textColor=MUTED, spaceAfter=2)
+        self.cell = _ps("cell", 7.2, leading=8.8)
+        self.cell_num = _ps("cell_num", 7.2, leading=8.8, alignment=2)
+        self.head = _ps("head", 7.2, leading=8.8, fontName=SANS_BOLD)
+        self.head_num = _ps("head_num", 7.2, leading=8.8, fontName=SANS_BOLD, alignment=2)
+        self.caution = _ps("caution", 9.5, leading=13, fontName=SANS_BOLD)
+        self.verdict = _ps("verdict", 15, leading=20, fontName=SANS_BOLD)
+
+
+def table_style(n_head: int = 1, numeric_from: int | None = None, zebra: bool = False) -> list:
+    """Light rules: a rule under the header and at the bottom, hairlines between rows."""
+    cmds = [
+        ("FONT", (0, 0), (-1, -1), SANS, 7.2),
+        ("TEXTCOLOR", (0, 0), (-1, -1), INK),
+        ("VALIGN", (0, 0), (-1, -1), "TOP"),
+        ("TOPPADDING", (0, 0), (-1, -1), 1.6),
+        ("BOTTOMPADDING", (0, 0), (-1, -1), 1.6),
+        ("LEFTPADDING", (0, 0), (-1, -1), 3),
+        ("RIGHTPADDING", (0, 0), (-1, -1), 3),
+        ("LINEBELOW", (0, n_head - 1), (-1, n_head - 1), 0.8, INK),
+        ("LINEBELOW", (0, n_head), (-1, -2), 0.25, RULE),
+        ("LINEBELOW", (0, -1), (-1, -1), 0.8, INK),
+        ("FONT", (0, 0), (-1, n_head - 1), SANS_BOLD, 7.2),
+    ]
+    if numeric_from is not None:
+        cmds.append(("ALIGN", (numeric_from, 0), (-1, -1), "RIGHT"))
+    if zebra:
+        cmds.append(("ROWBACKGROUNDS", (0, n_head), (-1, -1), [colors.white, BAND]))
+    return cmds
+
+
+def make_table_style(*extra: tuple, **kw) -> TableStyle:
+    return TableStyle([*table_style(**kw), *extra])
