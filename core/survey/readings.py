@@ -20,7 +20,7 @@ from __future__ import annotations
 import math
 import statistics
 from collections.abc import Iterable, Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING
 
 from core.definition import LossBand, PartThickness, Perforation, SectionDefinition, StationLoss
@@ -205,8 +205,6 @@ def station_stats(station: Station, member: Member, policy: str = "mean") -> lis
 
 
 def _with_notes(st: RegionStats, more: Iterable[Problem]) -> RegionStats:
-    from dataclasses import replace
-
     return replace(st, notes=(*more, *st.notes))
 
 

@@ -22,7 +22,7 @@ import json
 import sqlite3
 import threading
 from collections.abc import Iterator
-from contextlib import contextmanager
+from contextlib import contextmanager, suppress
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
@@ -31,8 +31,8 @@ from core.definition import SectionDefinition
 from core.errors import InputError, StoreError
 from core.survey.migrations import CURRENT, STORE_FORMAT, V2_SCHEMA, migrate
 from core.survey.model import Member, Station, Survey, SurveyHeader
-from core.survey.problems import Problem, raise_errors
-from core.survey.storeops import StoreOps
+from core.survey.problems import Problem
+from core.survey.storeops import StoreOps, _validated
 
 _MAGIC = b"SQLite format 3\x00"
 
@@ -113,10 +113,11 @@ class FieldStore(StoreOps):
         hdr = (
             survey_header
             if isinstance(survey_header, SurveyHeader)
-            else _model(SurveyHeader, survey_header, "survey header")
+            else _validated(SurveyHeader, survey_header, "survey header", "survey")
         )
         if p.exists():
             raise StoreError(f"{p}: a file of that name exists; a store is never overwritten")
+        conn = None
         try:
             conn = _connect(p, timeout)
             conn.execute("PRAGMA journal_mode=WAL")
@@ -137,6 +138,11 @@ class FieldStore(StoreOps):
             conn.execute(f"PRAGMA user_version = {CURRENT}")
             conn.execute("COMMIT")
         except sqlite3.Error as e:
+            if conn is not None:
+                with suppress(sqlite3.Error):
+                    conn.close()
+            for extra in (p, Path(f"{p}-wal"), Path(f"{p}-shm")):
+                extra.unlink(missing_ok=True)  # the half-made file is ours: remove it
             raise _sqlite_error(e, p) from None
         store = cls(conn, p)
         with store._txn(who, "add"):
@@ -340,7 +346,8 @@ class FieldStore(StoreOps):
         Raises:
             InputError: unknown member id.
         """
-        return self._member_and_definition(member_id)[0]
+        with self._lock:
+            return self._member_and_definition(member_id)[0]
 
     def _member_and_definition(self, member_id: str) -> tuple[Member, SectionDefinition]:
         data = self._get("member", member_id, "", member_id)
@@ -356,10 +363,11 @@ class FieldStore(StoreOps):
         return hit[1], hit[2]
 
     def station(self, member_id: str, station_id: str) -> Station:
-        data = self._get("station", member_id, "", station_id)
-        data["bands"] = self._rows("band", member_id, station_id)
-        data["perforations"] = self._rows("perforation", member_id, station_id)
-        data["readings"] = self._rows("reading", member_id, station_id)
+        """A station with its readings, bands and perforations (InputError if unknown)."""
+        with self._lock:
+            data = self._get("station", member_id, "", station_id)
+            for kind in ("band", "perforation", "reading"):
+                data[f"{kind}s"] = self._rows(kind, member_id, station_id)
         return Station.model_validate(data)
 
     def _get(self, kind: str, member: str, station: str, ident: str) -> dict:
@@ -385,13 +393,3 @@ def _has_table(conn: sqlite3.Connection, name: str) -> bool:
         ).fetchone()
         is not None
     )
-
-
-def _model(cls, data: Any, what: str):
-    from pydantic import ValidationError
-
-    try:
-        return cls.model_validate(data)
-    except ValidationError as e:
-        probs = [Problem("error", x["msg"], " / ".join(map(str, x["loc"]))) for x in e.errors()]
-        raise_errors(probs, what)
