@@ -5,9 +5,9 @@ from __future__ import annotations
 from reportlab.platypus import Paragraph, Spacer
 
 from core.assess.results import MemberResult
-from core.checks.flags import Level
+from core.checks.flags import Flag, Level
 from core.report.fmt import num, position, position_label, unit_label, value
-from core.report.styles import Styles, esc, level_markup
+from core.report.styles import Markup, Styles, esc, level_markup
 from core.report.tables import caption, grid
 
 
@@ -96,10 +96,12 @@ def readings(
     return out
 
 
-def validation(st: Styles, problems, member: str, source: str) -> list:
-    """Warnings and notes of the survey's validation that concern ``member``."""
-    tag = f"member {member!r}"
-    sel = [p for p in problems if tag in p.where]
+def validation(st: Styles, problems, m: MemberResult, source: str) -> list:
+    """Warnings and notes of the survey's validation that concern member ``m`` and are not
+    already numbered under the readings table."""
+    tag = f"member {m.member!r}"
+    shown = {p.message for s in m.stations for r in s.stats for p in r.notes}
+    sel = [p for p in problems if tag in p.where and p.message not in shown]
     if not sel:
         return []
     out = [Paragraph("Warnings and notes from the survey's validation", st.h3)]
@@ -120,6 +122,14 @@ def _subject(subject: str, member: str, station: str | None) -> str:
     return s
 
 
+def finding(f: Flag) -> Markup:
+    """The flag's message, its leading level words drawn with the level's shape and colour."""
+    label = f.level.label
+    if f.message.startswith(label):
+        return Markup(level_markup(f.level, bold=False) + esc(f.message[len(label) :]))
+    return Markup(level_markup(f.level, bold=False) + " · " + esc(f.message))
+
+
 def flags(st: Styles, m: MemberResult, system: str, width: float) -> list:
     """Every flag above "within limits" with the number that drove it; a count of the rest."""
     rows = []
@@ -131,14 +141,7 @@ def flags(st: Styles, m: MemberResult, system: str, width: float) -> list:
             if f.level == Level.OK:
                 n_ok += 1
                 continue
-            rows.append(
-                [
-                    label if first else "",
-                    level_markup(f.level, bold=False),
-                    _subject(f.subject, m.member, sid),
-                    f.message,
-                ]
-            )
+            rows.append([label if first else "", _subject(f.subject, m.member, sid), finding(f)])
             first = False
     out = [
         caption(
@@ -149,8 +152,8 @@ def flags(st: Styles, m: MemberResult, system: str, width: float) -> list:
         )
     ]
     if rows:
-        w = [0.08, 0.16, 0.2, 0.56]
-        out.append(grid(st, ["station", "level", "about", "finding"], rows, [width * x for x in w]))
+        w = [0.08, 0.22, 0.7]
+        out.append(grid(st, ["station", "about", "finding"], rows, [width * x for x in w]))
     else:
         out.append(Paragraph("No flag above 'within limits'.", st.body))
     out.append(

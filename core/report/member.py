@@ -183,6 +183,24 @@ def member_pages(
             st.body,
         ),
     ]
+    gov = governing_stations(m)
+    if gov:
+        out.append(CondPageBreak(600))
+        out.append(
+            Paragraph(f"Governing station(s): {', '.join(esc(s.station) for s in gov)}", st.h2)
+        )
+        out.append(
+            Paragraph(
+                f"The {len(gov)} station(s) with the worst flag level and the lowest capacity "
+                "ratio are drawn here; every station is in the tables that follow.",
+                st.caption,
+            )
+        )
+        for i, s in enumerate(gov):
+            if i:
+                out.append(CondPageBreak(560))
+            out += station_sheet(st, s, system, width, info)
+            out.append(Spacer(1, 8))
     if any(ln.positions for ln in m.lines):
         out.append(Paragraph("Rivet lines along the member", st.h2))
         out.append(Tracked(rivet_map(m, system, width), "rivet-map", info))
@@ -202,17 +220,6 @@ def member_pages(
             )
             h = ["rivet line", "M missing", "L loose", "H headless", f"longest gap ({pu})"]
             out.append(grid(st, h, rows, [width * x for x in (0.16, 0.24, 0.24, 0.2, 0.16)], (4,)))
-    gov = governing_stations(m)
-    if gov:
-        out.append(CondPageBreak(600))
-        out.append(
-            Paragraph(f"Governing station(s): {', '.join(esc(s.station) for s in gov)}", st.h2)
-        )
-        for i, s in enumerate(gov):
-            if i:
-                out.append(CondPageBreak(560))
-            out += station_sheet(st, s, system, width, info)
-            out.append(Spacer(1, 8))
     if m.stations:
         out.append(CondPageBreak(200))
         out.append(Paragraph("Section properties by station", st.h2))
@@ -224,7 +231,7 @@ def member_pages(
         out.append(Paragraph("Readings", st.h2))
         notes = {s.id: s.notes for s in member.stations}
         out += findings.readings(st, m, system, width, notes)
-    out += findings.validation(st, problems, m.member, source)
+    out += findings.validation(st, problems, m, source)
     out.append(CondPageBreak(150))
     out.append(Paragraph("Flags", st.h2))
     out += findings.flags(st, m, system, width)

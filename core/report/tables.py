@@ -23,7 +23,7 @@ from core.report.fmt import (
     unit_label,
     value,
 )
-from core.report.styles import BAND, RULE, Markup, Styles, esc, level_markup, make_table_style
+from core.report.styles import BAND, MUTED, Markup, Styles, esc, level_markup, make_table_style
 
 #: the gross-section properties shown for a governing station, in this order
 PROPS = ("A", "yc", "Ix", "Iy", "S_top", "S_bot", "Zx", "y_pna", "rx", "ry")
@@ -221,7 +221,9 @@ def capacity_tables(st: Styles, m: MemberResult, system: str, width: float) -> l
                         ratio(ls.ratio),
                         value(ls.demand, kind, system),
                         rf(ls.RF),
-                        level_markup(limit_level(s, ls), bold=False),
+                        level_markup(limit_level(s, ls), bold=False)
+                        if ls.C_found is not None
+                        else "not applicable (see flags)",
                     ]
                 )
                 first = False
@@ -238,8 +240,8 @@ def capacity_tables(st: Styles, m: MemberResult, system: str, width: float) -> l
             "RF",
             "level",
         ]
-        w = [0.07, 0.07, 0.2, 0.11, 0.11, 0.07, 0.11, 0.07, 0.19]
-        extra = tuple(("LINEABOVE", (0, r), (-1, r), 0.6, RULE) for r in rules)
+        w = [0.07, 0.06, 0.19, 0.1, 0.1, 0.07, 0.1, 0.07, 0.24]
+        extra = tuple(("LINEABOVE", (0, r), (-1, r), 0.7, MUTED) for r in rules)
         out.append(
             caption(
                 st,

@@ -65,7 +65,7 @@ def tau_plot(
     ymin = min(float(c[1].min()) for c in data)
     ymax = max(float(c[1].max()) for c in data)
     tmax = max(float(abs(c[2]).max()) for c in data) or 1.0
-    left, right, bottom, top = 34, width - 8, 26, height - (20 if title else 8)
+    left, right, bottom, top = 34, width - 8, 26, height - (20 if title else 8) - 22
     xt = ticks(0.0, tmax * 1.08, 4)
     xhi = max(xt[-1], tmax * 1.08)
     yt = ticks(ymin, ymax, 5)
@@ -106,7 +106,7 @@ def tau_plot(
             fillColor=INK,
         )
     )
-    d.add(String(2, top + 3, f"height ({fl.symbol})", fontName=SANS, fontSize=6, fillColor=MUTED))
+    d.add(String(2, top + 4, f"height ({fl.symbol})", fontName=SANS, fontSize=6, fillColor=MUTED))
     for _name, y, tau, colour, lw, dash, _st in data:
         pts = []
         for yi, ti in zip(y, tau, strict=True):
@@ -116,17 +116,18 @@ def tau_plot(
                 pts, strokeColor=colour, strokeWidth=lw, strokeDashArray=dash, strokeLineJoin=1
             )
         )
-    # maxima and legend
-    ly = top - 8
+    # maxima, and the legend above the plot
+    ly = top + 14
+    lx = left + 40
     for name, _y, _tau, colour, lw, dash, st in data:
         t, yh = st.gross.profile.tau_max(V)
         tv, yv = t * fs.value, yh * fl.value
         d.add(Rect(X(tv) - 1.6, Y(yv) - 1.6, 3.2, 3.2, fillColor=colour, strokeColor=None))
         d.add(
             Line(
-                right - 70,
+                lx,
                 ly + 2,
-                right - 56,
+                lx + 14,
                 ly + 2,
                 strokeColor=colour,
                 strokeWidth=lw,
@@ -135,36 +136,24 @@ def tau_plot(
         )
         d.add(
             String(
-                right - 53,
+                lx + 17,
                 ly,
-                text(f"{name}: τmax {num(tv, 4)}"),
+                text(f"{name}: τmax {num(tv, 4)} {fs.symbol} at {num(yv, 4)} {fl.symbol} (■)"),
                 fontName=SANS,
                 fontSize=6,
                 fillColor=INK,
             )
         )
-        ly -= 9
+        ly -= 8
     if not found.shear_applicable:
         d.add(
             String(
-                right - 2,
+                lx + 17,
                 ly,
-                "as-found: not applicable,",
+                "as-found: not applicable, the section is in pieces (VQ/It)",
                 fontName=SANS_BOLD,
                 fontSize=6,
                 fillColor=PERF,
-                textAnchor="end",
-            )
-        )
-        d.add(
-            String(
-                right - 2,
-                ly - 8,
-                "section in pieces (VQ/It)",
-                fontName=SANS_BOLD,
-                fontSize=6,
-                fillColor=PERF,
-                textAnchor="end",
             )
         )
     return d

@@ -1,0 +1,132 @@
+"""``asfound report FILE -o OUT.pdf`` or ``asfound report DIR -o OUTDIR``: condition reports.
+
+A single survey that fails validation writes no PDF and exits 2 with the list of errors. For
+a folder, every survey file (``*.json``) and field store in it is reported in turn with a
+progress bar on stderr and one summary line per survey on stdout; a bad file never stops
+the rest, and the exit status is 1 when any survey failed (they are listed at the end).
+"""
+
+from __future__ import annotations
+
+import argparse
+import sys
+from pathlib import Path
+
+from core import CAUTION
+from core.checks import STANDARDS
+from core.errors import AsfoundError
+from core.survey import is_store_file
+
+BAR = 24
+
+
+def register(sub: argparse._SubParsersAction) -> None:
+    p = sub.add_parser(
+        "report",
+        help="write the PDF condition report of a survey (or of every survey in a folder)",
+        description="Write the PDF condition report of a survey file or field store, or of "
+        "every survey in a folder. " + CAUTION,
+    )
+    p.add_argument("input", metavar="FILE|DIR", help="survey file, field store or folder")
+    p.add_argument(
+        "-o",
+        "--output",
+        metavar="OUT",
+        help="PDF to write (folder input: the folder for the PDFs); default: the input's "
+        "name with .pdf in the current folder (folder input: ./reports)",
+    )
+    p.add_argument("--units", choices=("si", "us"), help="unit system (default: the survey's)")
+    p.add_argument(
+        "--standard",
+        choices=sorted(STANDARDS),
+        help="standard for web shear (default: the survey's)",
+    )
+    p.set_defaults(func=handler)
+
+
+def survey_files(folder: Path) -> list[Path]:
+    """Survey files (``*.json``) and field stores in ``folder``, sorted by name."""
+    out = []
+    for p in sorted(folder.iterdir()):
+        if not p.is_file() or p.name.startswith("."):
+            continue
+        if p.name.endswith(("-wal", "-shm", "-journal")):
+            continue
+        if p.suffix.lower() == ".json" or is_store_file(p):
+            out.append(p)
+    return out
+
+
+def _bar(i: int, n: int, name: str) -> None:
+    done = BAR * i // max(n, 1)
+    line = f"[{'#' * done}{'.' * (BAR - done)}] {i}/{n} {name}"
+    if sys.stderr.isatty():
+        sys.stderr.write("\r\033[K" + line)
+        if i == n:
+            sys.stderr.write("\n")
+    else:
+        sys.stderr.write(line + "\n")
+    sys.stderr.flush()
+
+
+def _outputs(files: list[Path], outdir: Path) -> dict[Path, Path]:
+    """A PDF path per input, distinct even when two inputs share a stem."""
+    stems: dict[str, int] = {}
+    for f in files:
+        stems[f.stem] = stems.get(f.stem, 0) + 1
+    return {
+        f: outdir / (f"{f.stem}.pdf" if stems[f.stem] == 1 else f"{f.stem}-{f.suffix[1:]}.pdf")
+        for f in files
+    }
+
+
+def run_folder(folder: Path, outdir: Path, units: str | None, standard: str | None) -> int:
+    from core.report import build_report
+
+    files = survey_files(folder)
+    if not files:
+        print(
+            f"asfound: error: {folder}: no survey files (*.json) or field stores", file=sys.stderr
+        )
+        return 2
+    outdir.mkdir(parents=True, exist_ok=True)
+    outs = _outputs(files, outdir)
+    failed: list[tuple[str, str]] = []
+    for i, f in enumerate(files):
+        _bar(i, len(files), f.name)
+        try:
+            rep = build_report(f, outs[f], units=units, standard=standard)
+        except Exception as e:  # one bad file never stops the rest
+            msg = str(e).strip()
+            failed.append((f.name, msg))
+            print(f"FAILED  {f.name}: {type(e).__name__}: {msg}", flush=True)
+            print(f"        no report written for {f.name}", flush=True)
+            continue
+        print(f"ok      {f.name}: {rep.level.label}, {rep.pages} pages -> {rep.path}", flush=True)
+    _bar(len(files), len(files), "done")
+    if failed:
+        names = ", ".join(n for n, _ in failed)
+        print(f"asfound: {len(failed)} of {len(files)} survey(s) failed: {names}", file=sys.stderr)
+        return 1
+    return 0
+
+
+def handler(args: argparse.Namespace) -> int:
+    from core.report import build_report
+
+    src = Path(args.input)
+    if src.is_dir():
+        out = Path(args.output) if args.output else Path("reports")
+        return run_folder(src, out, args.units, args.standard)
+    out = Path(args.output) if args.output else Path(src.stem + ".pdf")
+    if out.is_dir():
+        out = out / (src.stem + ".pdf")
+    try:
+        rep = build_report(src, out, units=args.units, standard=args.standard)
+    except AsfoundError as e:
+        print(f"asfound: error: {e}", file=sys.stderr)
+        print(f"asfound: no report written ({out} untouched)", file=sys.stderr)
+        return 2
+    print(f"{src}: {rep.level.label}; {rep.pages} pages -> {rep.path}")
+    print(CAUTION, file=sys.stderr)
+    return 0
