@@ -208,6 +208,20 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
             probs.append(
                 Problem("error", f"run end {r.run.end:g} is before start {r.run.start:g}", wl)
             )
+        line = next((x for x in defn.rivet_lines if x.id == r.line), None) if defn else None
+        if line is not None and r.run is not None:
+            recorded = _kind(r.run.pitch, pos_unit, "length", wl, probs)
+            if recorded is not None and abs(recorded / line.pitch - 1.0) > 0.05:
+                probs.append(
+                    Problem(
+                        "warning",
+                        f"recorded rivet pitch {r.run.pitch:g} {pos_unit} "
+                        f"({recorded:.4g} mm) differs from the drawing's pitch "
+                        f"{line.pitch:.4g} mm by more than 5 %: the as-built section uses the "
+                        "drawing's pitch, the as-found one the recorded rivets",
+                        wl,
+                    )
+                )
         if L is None:
             continue
         for p, _state in r.expanded():
