@@ -29,14 +29,18 @@ def test_dead_loads_of_opposite_sign() -> None:
     st = d["members"][0]["stations"][2]
     st["loads"]["DC"]["V"] = {"value": 120.0, "unit": "kN"}
     st["loads"]["DW"]["V"] = {"value": -30.0, "unit": "kN"}
-    with pytest.raises(InputError, match=r"station 'S3'.*opposite sign.*DC V = 120 kN, DW V = -30 kN"):
+    with pytest.raises(
+        InputError, match=r"station 'S3'.*opposite sign.*DC V = 120 kN, DW V = -30 kN"
+    ):
         assess(survey(d))
 
 
 def test_load_in_the_wrong_unit() -> None:
     d = copy.deepcopy(sample_doc())
     d["members"][0]["stations"][1]["loads"]["LL_IM"]["V"] = {"value": 500.0, "unit": "kN*m"}
-    with pytest.raises(UnitError, match=r"station 'S2' / loads / LL / V.*'kN\*m' is not a force unit"):
+    with pytest.raises(
+        UnitError, match=r"station 'S2' / loads / LL / V.*'kN\*m' is not a force unit"
+    ):
         assess(survey(d))
 
 

@@ -5,6 +5,7 @@ in the web and the bottom flange; more missing rivets never raise a rivet line's
 from __future__ import annotations
 
 import copy
+import itertools
 
 import pytest
 from hypothesis import given, settings
@@ -51,13 +52,18 @@ def test_loss_never_raises_capacity(web, angle, cover, band) -> None:
         s["readings"] = [
             {"id": f"r{k}", "part": part, "value": t, "unit": "mm"}
             for k, (part, t) in enumerate(
-                [("web", g["tw"] * web), ("angle_bl", g["angle_t"] * angle),
-                 ("angle_br", g["angle_t"] * angle),
-                 ("cover_bottom_1", g["covers_bottom"][0][1] * cover)]
+                [
+                    ("web", g["tw"] * web),
+                    ("angle_bl", g["angle_t"] * angle),
+                    ("angle_br", g["angle_t"] * angle),
+                    ("cover_bottom_1", g["covers_bottom"][0][1] * cover),
+                ]
             )
         ]
         lo = g["web_recess"] + g["angle_v"]
-        s["bands"] = [{"id": "b", "part": "web", "lo": lo, "hi": lo + 60, "t": g["tw"] * web * band}]
+        s["bands"] = [
+            {"id": "b", "part": "web", "lo": lo, "hi": lo + 60, "t": g["tw"] * web * band}
+        ]
     a = assess(survey(d))
     for st_ in a.members[0].stations:
         for ls in st_.limit_states:
@@ -70,8 +76,13 @@ def test_loss_never_raises_capacity(web, angle, cover, band) -> None:
 def test_more_missing_rivets_never_raise_rivet_capacity(missing) -> None:
     d = copy.deepcopy(BASE)
     m = d["members"][0]
-    m["rivets"] = [{"line": "web_bottom", "run": {"start": 0.05, "end": 5.95, "pitch": 0.1,
-                                                 "state": "sound"}, "states": []}]
+    m["rivets"] = [
+        {
+            "line": "web_bottom",
+            "run": {"start": 0.05, "end": 5.95, "pitch": 0.1, "state": "sound"},
+            "states": [],
+        }
+    ]
     caps = []
     for k in range(len(missing) + 1):
         m["rivets"][0]["states"] = [
@@ -79,7 +90,7 @@ def test_more_missing_rivets_never_raise_rivet_capacity(missing) -> None:
         ]
         a = assess(survey(d))
         caps.append([s.limit_state("rivets:web_bottom").C_found for s in a.members[0].stations])
-    for before, after in zip(caps, caps[1:], strict=False):
+    for before, after in itertools.pairwise(caps):
         for b, f in zip(before, after, strict=True):
             assert f <= b + 1e-9
 
@@ -87,9 +98,16 @@ def test_more_missing_rivets_never_raise_rivet_capacity(missing) -> None:
 def test_loose_rivets_counted_when_the_engineer_says_so() -> None:
     d = copy.deepcopy(BASE)
     m = d["members"][0]
-    m["rivets"] = [{"line": "web_bottom", "run": {"start": 0.05, "end": 5.95, "pitch": 0.1,
-                                                 "state": "loose"}, "states": []}]
+    m["rivets"] = [
+        {
+            "line": "web_bottom",
+            "run": {"start": 0.05, "end": 5.95, "pitch": 0.1, "state": "loose"},
+            "states": [],
+        }
+    ]
     strict_ = assess(survey(d)).members[0].stations[0].limit_state("rivets:web_bottom")
     lenient = assess(survey(d), AssessOptions(effective_states=("sound", "loose")))
     assert strict_.C_found == 0.0
-    assert lenient.members[0].stations[0].limit_state("rivets:web_bottom").ratio == pytest.approx(1.0)
+    assert lenient.members[0].stations[0].limit_state("rivets:web_bottom").ratio == pytest.approx(
+        1.0
+    )
