@@ -1,0 +1,184 @@
+"""The report prints the engine's own numbers, flags, cautions and assumptions.
+
+Each PDF is built once per module; the text is extracted with pypdf and compared with the
+assessment's values formatted by the report's own formatters (core.report.fmt).
+"""
+
+from __future__ import annotations
+
+import pytest
+from pypdf import PdfReader
+
+from core import CAUTION
+from core.checks.flags import Level
+from core.report import build_report
+from core.report.cover import CAUTIONS
+from core.report.fmt import position, ratio, rf, value
+from core.report.member import governing_stations, shear_for_plot
+from core.report.notes import check_sources
+
+from .helpers import SI_SAMPLE, US_SAMPLE, flat, pdf_pages
+
+
+@pytest.fixture(scope="module")
+def si(tmp_path_factory):
+    out = tmp_path_factory.mktemp("rep") / "si.pdf"
+    rep = build_report(SI_SAMPLE, out)
+    pages = pdf_pages(out)
+    return rep, pages, " ".join(pages)
+
+
+@pytest.fixture(scope="module")
+def us(tmp_path_factory):
+    out = tmp_path_factory.mktemp("rep") / "us.pdf"
+    rep = build_report(US_SAMPLE, out)
+    pages = pdf_pages(out)
+    return rep, pages, " ".join(pages)
+
+
+def test_every_page_has_number_identity_and_checksum(si):
+    rep, pages, _ = si
+    assert rep.pages == len(pages) >= 5
+    a = rep.assessment
+    for i, text in enumerate(pages, 1):
+        assert f"page {i} of {rep.pages}" in text
+        assert a.survey_id in text and a.title in text
+        assert f"SHA-256 {rep.checksum}" in text
+
+
+def test_checksum_is_sha256_of_the_input_bytes(si):
+    import hashlib
+
+    rep, _, _ = si
+    # SHA-256 per FIPS 180-4, computed here with the standard library
+    assert rep.checksum == hashlib.sha256(SI_SAMPLE.read_bytes()).hexdigest()[:16]
+
+
+def test_cover_has_verdict_and_cautions(si):
+    rep, pages, _ = si
+    cover = pages[0]
+    assert rep.level == max(f.level for f in rep.assessment.all_flags())
+    assert f"Overall verdict {rep.level.label}" in cover.replace("■ ", "").replace("△ ", "")
+    assert flat(CAUTION) in cover
+    for c in CAUTIONS:
+        assert flat(c) in cover
+    assert "not, by itself, a load rating or a posting decision" in cover
+
+
+def test_ratios_and_rating_factors_of_every_limit_state(si):
+    rep, _, text = si
+    for m in rep.assessment.members:
+        for s in m.stations:
+            for ls in s.limit_states:
+                row = (
+                    f"{ls.name} {value(ls.C_built, ls.kind, 'si')} "
+                    f"{value(ls.C_found, ls.kind, 'si')} {ratio(ls.ratio)} "
+                    f"{value(ls.demand, ls.kind, 'si')} {rf(ls.RF)}"
+                )
+                assert row in text, (s.station, row)
+
+
+def test_properties_by_station_print_area_and_Ix(si):
+    rep, _, text = si
+    m = rep.assessment.members[0]
+    b = m.stations[0].built.gross.props
+    for s in m.stations:
+        f = s.found.gross.props
+        row = (
+            f"{s.station} {position(s.x, 'si')} {value(f.A, 'area', 'si')} {ratio(f.A / b.A)} "
+            f"{value(f.Ix, 'inertia', 'si')} {ratio(f.Ix / b.Ix)}"
+        )
+        assert row in text, row
+    assert "Ix (10⁶ mm⁴)" in text
+
+
+def test_governing_stations_print_Ix_and_tau_max(si):
+    rep, _, text = si
+    m = rep.assessment.members[0]
+    gov = governing_stations(m)
+    assert 1 <= len(gov) <= 3
+    # the worst station of the member is among the ones drawn
+    assert max(s.level for s in m.stations) == max(s.level for s in gov)
+    for s in gov:
+        V, words = shear_for_plot(s, "si")
+        assert flat(words) in text
+        b, f = s.built.gross.props, s.found.gross.props
+        assert f"Ix (10⁶ mm⁴) {value(b.Ix, 'inertia', 'si')} {value(f.Ix, 'inertia', 'si')}" in text
+        tb = s.built.gross.profile.tau_max(V)[0]
+        if s.found.shear_applicable:
+            tf = s.found.gross.profile.tau_max(V)[0]
+            row = f"τmax = VQ/(I t) (MPa) {value(tb, 'stress', 'si')} {value(tf, 'stress', 'si')}"
+        else:
+            row = f"τmax = VQ/(I t) (MPa) {value(tb, 'stress', 'si')} –"
+        assert row in text, row
+
+
+def test_flags_above_within_limits_print_their_messages(si):
+    rep, _, text = si
+    shown = [f for f in rep.assessment.all_flags() if f.level > Level.OK]
+    assert shown, "the sample has findings"
+    for f in shown:
+        assert flat(f.message) in text, f.message
+
+
+def test_readings_statistics_and_notes(si):
+    rep, _, text = si
+    s = rep.assessment.members[0].stations[0]
+    for r in s.stats:
+        assert (
+            f"{r.n} {value(r.t_nominal, 'length', 'si')} {value(r.t_min, 'length', 'si')}" in text
+        )
+        for p in r.notes:
+            assert flat(p.message) in text
+    assert "COV %" in text
+
+
+def test_assumptions_with_sources_and_check_clauses(si):
+    rep, _pages, text = si
+    a = rep.assessment
+    for x in a.assumptions:
+        assert flat(f"{x.item} {x.value} {x.source}") in text, x
+    for name, ref in check_sources(a):
+        assert flat(f"{name} {ref}") in text
+    # EN 1993-1-5 is the survey's standard: its clause is named
+    assert "EN 1993-1-5" in text
+
+
+def test_history_says_the_input_was_a_file_and_review_block(si):
+    _, pages, text = si
+    assert "The input was a survey file" in text
+    last = pages[-1]
+    for words in (
+        "Reviewing engineer",
+        "Licence number",
+        "Date",
+        "Signature",
+        "Accepted",
+        "Returned for revision",
+    ):
+        assert words in last
+
+
+def test_every_table_states_its_unit_system(si):
+    _, _, text = si
+    # each table caption ends with the unit system
+    assert text.count("· SI units") >= 8
+    assert "US customary" not in text
+
+
+def test_page_size_follows_the_unit_system(si, us):
+    # ISO 216 A4 is 210 x 297 mm; ANSI Letter 8.5 x 11 in (1 pt = 1/72 in)
+    a4 = PdfReader(str(si[0].path)).pages[0].mediabox
+    lt = PdfReader(str(us[0].path)).pages[0].mediabox
+    assert (round(float(a4.width) * 25.4 / 72), round(float(a4.height) * 25.4 / 72)) == (210, 297)
+    assert (float(lt.width) / 72, float(lt.height) / 72) == (8.5, 11.0)
+
+
+def test_us_report_in_us_units(us):
+    rep, _, text = us
+    assert "US customary units" in text and "(kip)" in text and "(in⁴)" in text
+    m = rep.assessment.members[0]
+    s = m.stations[0]
+    assert "not applicable" in text and not s.found.shear_applicable
+    for ls in s.limit_states:
+        assert f"{ls.name} {value(ls.C_built, ls.kind, 'us')}" in text

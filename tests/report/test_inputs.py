@@ -1,0 +1,80 @@
+"""Inputs of the report: survey text with markup characters, surveys that fail validation
+(no PDF, a clear error), field stores (edit history), and a folder with a bad file."""
+
+from __future__ import annotations
+
+import json
+
+import pytest
+
+from core.cli import main
+from core.errors import SchemaError
+from core.report import build_report
+from core.survey import import_survey
+
+from .helpers import MISTAKES, SI_SAMPLE, pdf_pages
+
+TITLE = '<Girder & "Span" 3>'
+NOTE = "Pack rust <b>not bold</b> & scale > 5 mm; <font size=40>"
+
+
+@pytest.fixture(scope="module")
+def markup(tmp_path_factory):
+    d = tmp_path_factory.mktemp("markup")
+    doc = json.loads(SI_SAMPLE.read_text(encoding="utf-8"))
+    doc["survey"]["title"] = TITLE
+    doc["members"][0]["stations"][0]["notes"] = NOTE
+    src = d / "markup.json"
+    src.write_text(json.dumps(doc), encoding="utf-8")
+    rep = build_report(src, d / "markup.pdf")
+    return rep, pdf_pages(rep.path)
+
+
+def test_title_with_markup_characters_prints_literally(markup):
+    _rep, pages = markup
+    assert TITLE in pages[0]
+    for text in pages:  # the footer of every page
+        assert TITLE in text
+
+
+def test_station_note_with_markup_prints_literally(markup):
+    _, pages = markup
+    assert NOTE in " ".join(pages)
+
+
+def test_survey_failing_validation_writes_no_pdf(tmp_path):
+    out = tmp_path / "m.pdf"
+    with pytest.raises(SchemaError, match="7 error"):
+        build_report(MISTAKES, out)
+    assert not out.exists()
+    assert list(tmp_path.iterdir()) == []  # no temporary file left either
+
+
+def test_failing_survey_on_the_command_line_exits_2(tmp_path, capsys):
+    out = tmp_path / "m.pdf"
+    out.write_bytes(b"an older report")
+    assert main(["report", str(MISTAKES), "-o", str(out)]) == 2
+    err = capsys.readouterr().err
+    assert "unknown part id 'web_plate'" in err and "no report written" in err
+    assert out.read_bytes() == b"an older report"  # never replaced by a partial PDF
+
+
+def test_folder_continues_past_bad_files_and_names_them(tmp_path, capsys):
+    src = tmp_path / "in"
+    src.mkdir()
+    (src / "a-good.json").write_bytes(SI_SAMPLE.read_bytes())
+    (src / "b-bad.json").write_bytes(MISTAKES.read_bytes())
+    (src / "c-truncated.json").write_text('{"format": "asfound.survey", "vers', encoding="utf-8")
+    import_survey(SI_SAMPLE, src / "d-store.db", who="test inspector")
+    out = tmp_path / "out"
+    assert main(["report", str(src), "-o", str(out)]) == 1
+    cap = capsys.readouterr()
+    assert "[" in cap.err and "4/4" in cap.err  # the progress bar reached the end
+    assert "b-bad.json" in cap.err and "c-truncated.json" in cap.err
+    assert "a-good.json" not in cap.err.split("failed:")[-1]
+    assert sorted(p.name for p in out.iterdir()) == ["a-good.pdf", "d-store.pdf"]
+    ok = [ln for ln in cap.out.splitlines() if ln.startswith("ok")]
+    assert len(ok) == 2 and all("needs immediate attention" in ln for ln in ok)
+    text = " ".join(pdf_pages(out / "d-store.pdf"))
+    assert "Edit history" in text and "Field store d-store.db" in text
+    assert "test inspector" in text
