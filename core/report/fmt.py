@@ -45,6 +45,12 @@ def num(v: float | None, digits: int = 4) -> str:
     return s
 
 
+def tick(v: float) -> str:
+    """An axis tick label: three significant digits, trailing zeros dropped."""
+    s = num(v, 3)
+    return s.rstrip("0").rstrip(".") if "." in s else s
+
+
 def ratio(v: float | None) -> str:
     """A capacity ratio as-found / as-built: three decimals."""
     if v is None:

@@ -202,16 +202,17 @@ def member_pages(
             out += station_sheet(st, s, system, width, info)
             out.append(Spacer(1, 8))
     if any(ln.positions for ln in m.lines):
-        out.append(Paragraph("Rivet lines along the member", st.h2))
-        out.append(Tracked(rivet_map(m, system, width), "rivet-map", info))
-        out.append(
+        block = [
+            Paragraph("Rivet lines along the member", st.h2),
+            Tracked(rivet_map(m, system, width), "rivet-map", info),
             Paragraph(
                 "One row per rivet line; a mark per rivet. Not effective: M missing (circle), "
                 "L loose (triangle), H headless (filled square); neighbouring letters are "
                 "merged with a count (M2 = two missing).",
                 st.caption,
-            )
-        )
+            ),
+        ]
+        out.append(KeepTogether(block))
         rows = ineffective_rows(m, system)
         if rows:
             pu = position_label(system)
@@ -225,6 +226,7 @@ def member_pages(
         out.append(Paragraph("Section properties by station", st.h2))
         out.append(caption(st, "Gross section as-found against as-built", system))
         out.append(properties_by_station(st, m, system, width))
+        out.append(CondPageBreak(120))
         out.append(Paragraph("Capacities, ratios and rating factors by station", st.h2))
         out += capacity_tables(st, m, system, width)
         out.append(CondPageBreak(150))

@@ -12,7 +12,7 @@ from reportlab.graphics.shapes import Circle, Drawing, Line, Polygon, Rect, Stri
 from reportlab.pdfbase.pdfmetrics import stringWidth
 
 from core.assess.results import MemberResult
-from core.report.fmt import num, position, position_label
+from core.report.fmt import position, position_label, tick
 from core.report.styles import ACCENT, INK, MUTED, PERF, RULE, SANS, SANS_BOLD, STEEL, text
 from core.report.tauplot import ticks
 from core.units import from_internal
@@ -182,7 +182,7 @@ def rivet_map(member: MemberResult, system: str, width: float) -> Drawing:
     for t in ticks(0.0, span_u, 8):
         xx = x0 + (x1 - x0) * t / span_u
         d.add(Line(xx, ya, xx, ya - 3, strokeColor=INK, strokeWidth=0.5))
-        d.add(String(xx, ya - 10, num(t, 3), fontName=SANS, fontSize=6, textAnchor="middle"))
+        d.add(String(xx, ya - 10, tick(t), fontName=SANS, fontSize=6, textAnchor="middle"))
     d.add(String(4, ya - 10, f"position ({u})", fontName=SANS, fontSize=6, fillColor=MUTED))
     # legend
     ly, lx = 6, x0

@@ -127,7 +127,7 @@ def station_limits(st: Styles, sr: StationResult, system: str, width: float):
                 rf(ls.RF),
             ]
         )
-    w = [width * 0.4, width * 0.17, width * 0.17, width * 0.13, width * 0.13]
+    w = [width * 0.37, width * 0.17, width * 0.17, width * 0.13, width * 0.16]
     h = ["limit state (unit)", "φRn as-built", "φRn as-found", "ratio", "RF"]
     return grid(st, h, rows, w, range(1, 5))
 

@@ -11,7 +11,7 @@ import math
 
 from reportlab.graphics.shapes import Drawing, Line, PolyLine, Rect, String
 
-from core.report.fmt import num
+from core.report.fmt import num, tick
 from core.report.styles import ACCENT, INK, MUTED, PERF, RULE, SANS, SANS_BOLD, STEEL_DARK, text
 from core.section import StationSection
 from core.units import show
@@ -91,10 +91,10 @@ def tau_plot(
     d.add(Rect(left, bottom, right - left, top - bottom, fillColor=None, strokeColor=RULE))
     for v in xt:
         d.add(Line(X(v), bottom, X(v), top, strokeColor=RULE, strokeWidth=0.3))
-        d.add(String(X(v), bottom - 8, num(v, 3), fontName=SANS, fontSize=6, textAnchor="middle"))
+        d.add(String(X(v), bottom - 8, tick(v), fontName=SANS, fontSize=6, textAnchor="middle"))
     for v in yt:
         d.add(Line(left, Y(v), right, Y(v), strokeColor=RULE, strokeWidth=0.3))
-        d.add(String(left - 3, Y(v) - 2, num(v, 4), fontName=SANS, fontSize=6, textAnchor="end"))
+        d.add(String(left - 3, Y(v) - 2, tick(v), fontName=SANS, fontSize=6, textAnchor="end"))
     d.add(
         String(
             (left + right) / 2,
