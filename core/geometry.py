@@ -77,24 +77,14 @@ class Pieces:
         if self.has_cuts:
             raise GeometryError("connectivity is defined for the gross section only")
         r = self.rects
-        ox = np.minimum(r[:, None, 2], r[None, :, 2]) - np.maximum(r[:, None, 0], r[None, :, 0])
-        oy = np.minimum(r[:, None, 3], r[None, :, 3]) - np.maximum(r[:, None, 1], r[None, :, 1])
+        o = _pair_overlap(r)  # o[0], o[1]: along x and along y
         tol = 1e-6
-        adj = ((ox > tol) & (oy >= -tol)) | ((oy > tol) & (ox >= -tol))
-        parent = list(range(n))
-
-        def root(k: int) -> int:
-            while parent[k] != k:
-                parent[k] = parent[parent[k]]
-                k = parent[k]
-            return k
-
-        ii, jj = np.nonzero(np.triu(adj, 1))
-        for a, b in zip(ii.tolist(), jj.tolist(), strict=True):
-            ra, rb = root(a), root(b)
-            if ra != rb:
-                parent[max(ra, rb)] = min(ra, rb)
-        label = np.array([root(k) for k in range(n)])
+        pos, touch = o > tol, o >= -tol
+        adj = (pos[0] & touch[1]) | (pos[1] & touch[0])
+        label = _component_labels(adj)
+        if label is None:  # one piece of material
+            present = set(self.owner.tolist())
+            return [tuple(p for k, p in enumerate(self.part_ids) if k in present)]
         area = (r[:, 2] - r[:, 0]) * (r[:, 3] - r[:, 1])
         groups = []
         for lab in np.unique(label):
@@ -115,11 +105,107 @@ class Pieces:
         return out
 
 
+def _component_labels(adj: np.ndarray) -> np.ndarray | None:
+    """Connected components of the graph with the symmetric, reflexive adjacency ``adj``
+    (n, n): None when all nodes form one component, else each node's label, the smallest
+    node index of its component.
+
+    Squaring the reachability matrix doubles the path length it covers, so
+    ceil(log2(n - 1)) squarings give the transitive closure.
+    """
+    n = len(adj)
+    reach = adj.astype(np.float32)
+    for _ in range(max(n - 2, 0).bit_length()):
+        if reach[0].all():
+            return None
+        reach = (reach @ reach > 0).astype(np.float32)
+    if reach[0].all():
+        return None
+    return np.argmax(reach > 0, axis=1)
+
+
 def _snap(v: np.ndarray | float) -> np.ndarray:
     return np.round(np.asarray(v, dtype=float) / GRID) * GRID
 
 
+#: key under which the per-definition plan is kept in a definition's ``__dict__``
+_PLAN_KEY = "_asfound_section_plan"
+
+
+class _Plan:
+    """What every station of one definition shares, worked out once per definition.
+
+    Kept in the frozen definition's ``__dict__`` (it has no slots), so it lives and dies with
+    the definition and never leaks between definitions; it is built only for a definition
+    whose parts do not overlap (an overlap raises every time). Arrays are read-only.
+
+    Attributes:
+        part_ids: ids of the parts, in definition order.
+        known: part by id.
+        contacts: per plate id, the contact intervals on its low and high face (mm).
+        nominal: per part index, the rectangles with no loss (as :func:`build_pieces` makes them).
+        holes: rectangles (n, 4) swept by the rivet holes of each line (mm).
+        pierce_t: (n_parts, n_lines) True where a line passes through a part.
+        cuts_may_overlap: False when no two hole cuts of any net section of this definition
+            can overlap (see :func:`_cuts_may_overlap`), so the check is skipped.
+    """
+
+    __slots__ = (
+        "contacts",
+        "cuts_may_overlap",
+        "holes",
+        "known",
+        "nominal",
+        "part_ids",
+        "pierce_t",
+    )
+
+    def __init__(self, defn: SectionDefinition) -> None:
+        self.part_ids = tuple(p.id for p in defn.parts)
+        self.known = {p.id: p for p in defn.parts}
+        self.contacts = _layout(defn)
+        self.nominal = [
+            _plate_rects(p, p.t, (), (), self.contacts[p.id], defn.name)
+            if isinstance(p, Plate)
+            else list(p.leg_rects(p.t, p.t))
+            for p in defn.parts
+        ]
+        self.holes = _hole_rects(defn)
+        self.holes.flags.writeable = False
+        index = {pid: k for k, pid in enumerate(self.part_ids)}
+        pierce = np.zeros((len(self.part_ids), len(defn.rivet_lines)), dtype=bool)
+        for j, line in enumerate(defn.rivet_lines):
+            pierce[[index[pid] for pid in line.parts], j] = True
+        pierce.flags.writeable = False
+        self.pierce_t = pierce
+        self.cuts_may_overlap = _cuts_may_overlap(defn, self.holes, pierce)
+
+    def __reduce__(self):
+        # derived data: a pickled or copied definition carries no plan and builds its own
+        return (_no_plan, ())
+
+
+def _no_plan() -> None:
+    return None
+
+
+def _plan(defn: SectionDefinition) -> _Plan:
+    """The plan of ``defn``, built on first use (raises :class:`GeometryError` on overlaps),
+    kept on the instance so that later stations look it up without hashing."""
+    plan = defn.__dict__.get(_PLAN_KEY)
+    if plan is None:
+        plan = _shared_plan(defn)
+        defn.__dict__[_PLAN_KEY] = plan
+    return plan
+
+
 @lru_cache(maxsize=64)
+def _shared_plan(defn: SectionDefinition) -> _Plan:
+    """Plans by equality: a new instance equal to a recent one (a definition rebuilt from
+    the same file) shares that one's plan. Errors are not cached: they raise every time."""
+    return _Plan(defn)
+
+
 def _layout(defn: SectionDefinition) -> dict[str, tuple[list, list]]:
     """Check that no two parts overlap and find, for each plate, where each of its two faces
     is covered by another part (contact intervals along the plate's width, mm).
@@ -134,10 +220,12 @@ def _layout(defn: SectionDefinition) -> dict[str, tuple[list, list]]:
             owner.append(i)
     r = _snap(np.array(rects))
     owner_a = np.array(owner)
-    x0 = np.maximum(r[:, None, 0], r[None, :, 0])
-    y0 = np.maximum(r[:, None, 1], r[None, :, 1])
-    x1 = np.minimum(r[:, None, 2], r[None, :, 2])
-    y1 = np.minimum(r[:, None, 3], r[None, :, 3])
+    # contiguous columns broadcast much faster than strided ones
+    cx0, cy0, cx1, cy1 = np.ascontiguousarray(r.T)
+    x0 = np.maximum(cx0[:, None], cx0[None, :])
+    y0 = np.maximum(cy0[:, None], cy0[None, :])
+    x1 = np.minimum(cx1[:, None], cx1[None, :])
+    y1 = np.minimum(cy1[:, None], cy1[None, :])
     area = np.clip(x1 - x0, 0, None) * np.clip(y1 - y0, 0, None)
     same = owner_a[:, None] == owner_a[None, :]
     area[same] = 0.0
@@ -149,31 +237,35 @@ def _layout(defn: SectionDefinition) -> dict[str, tuple[list, list]]:
             "(parts may touch but not overlap)",
             where=defn.name,
         )
+    # plain Python from here: a dozen parts, where numpy's per-call cost would dominate
+    rl = r.tolist()
+    plates = [(k, p) for k, p in enumerate(defn.parts) if isinstance(p, Plate)]
+    bounds = _snap(np.array([p.bounds for _, p in plates], dtype=float).reshape(-1, 4)).tolist()
     contacts: dict[str, tuple[list, list]] = {}
-    for k, p in enumerate(defn.parts):
-        if not isinstance(p, Plate):
-            continue
-        others = r[owner_a != k]
-        (px0, py0, px1, py1) = _snap(np.array(p.bounds))
-        if p.orientation == "horizontal":
-            face_lo = np.abs(others[:, 3] - py0) <= TOL
-            face_hi = np.abs(others[:, 1] - py1) <= TOL
-            span = np.stack([np.maximum(others[:, 0], px0), np.minimum(others[:, 2], px1)], 1)
-        else:
-            face_lo = np.abs(others[:, 2] - px0) <= TOL
-            face_hi = np.abs(others[:, 0] - px1) <= TOL
-            span = np.stack([np.maximum(others[:, 1], py0), np.minimum(others[:, 3], py1)], 1)
-        real = span[:, 1] - span[:, 0] > TOL
-        contacts[p.id] = (
-            [tuple(s) for s in span[face_lo & real]],
-            [tuple(s) for s in span[face_hi & real]],
-        )
+    for (k, p), (px0, py0, px1, py1) in zip(plates, bounds, strict=True):
+        horizontal = p.orientation == "horizontal"
+        on_lo, on_hi = [], []
+        for (x0, y0, x1, y1), o in zip(rl, owner, strict=True):
+            if o == k:
+                continue
+            if horizontal:
+                s0, s1 = max(x0, px0), min(x1, px1)
+                lo_face, hi_face = abs(y1 - py0) <= TOL, abs(y0 - py1) <= TOL
+            else:
+                s0, s1 = max(y0, py0), min(y1, py1)
+                lo_face, hi_face = abs(x1 - px0) <= TOL, abs(x0 - px1) <= TOL
+            if s1 - s0 > TOL:
+                if lo_face:
+                    on_lo.append((s0, s1))
+                if hi_face:
+                    on_hi.append((s0, s1))
+        contacts[p.id] = (on_lo, on_hi)
     return contacts
 
 
 def check_overlaps(defn: SectionDefinition) -> None:
     """Raise :class:`GeometryError` if any two parts of the as-built section overlap."""
-    _layout(defn)
+    _plan(defn)
 
 
 def _nominal_rects(p: Plate | Angle) -> list[tuple[float, float, float, float]]:
@@ -192,9 +284,15 @@ def _face_share(p: Plate) -> tuple[float, float]:
 
 
 def _plate_rects(
-    p: Plate, t_base: float, loss: StationLoss, contacts: tuple[list, list], where: str
+    p: Plate,
+    t_base: float,
+    bands_of: tuple | list,
+    perfs_of: tuple | list,
+    contacts: tuple[list, list],
+    where: str,
 ) -> list[tuple[float, float, float, float]]:
-    """Rectangles of a plate with its loss applied.
+    """Rectangles of a plate with its loss applied (``bands_of`` and ``perfs_of``: the loss
+    bands and perforations of this plate, in the order given).
 
     A uniform remaining thickness (a gauge reading) thins only the faces that are exposed:
     where another part lies against a face (a faying surface, e.g. the web gripped between
@@ -206,9 +304,7 @@ def _plate_rects(
     cuts = {a, b}
     bands = []
     perfs = []
-    for band in loss.bands:
-        if band.part != p.id:
-            continue
+    for band in bands_of:
         if band.lo < a - TOL or band.hi > b + TOL:
             raise GeometryError(
                 f"loss band {band.lo:g} to {band.hi:g} mm lies outside the plate "
@@ -224,9 +320,7 @@ def _plate_rects(
         lo, hi = max(band.lo, a), min(band.hi, b)
         bands.append((lo, hi, band.t))
         cuts.update((lo, hi))
-    for perf in loss.perforations:
-        if perf.part != p.id:
-            continue
+    for perf in perfs_of:
         if perf.lo < a - TOL or perf.hi > b + TOL:
             raise GeometryError(
                 f"perforation {perf.lo:g} to {perf.hi:g} mm lies outside the plate "
@@ -279,13 +373,14 @@ def build_pieces(
             tension). Without holes the section serves shear stress and shear flow.
 
     Raises:
-        GeometryError: unknown part ids, thickness above nominal, a loss that removes a
-            whole part, bands or perforations outside their plate, bands on angles.
+        GeometryError: overlapping parts, unknown part ids, thickness above nominal, a loss
+            that removes a whole part, bands or perforations outside their plate, bands on
+            angles.
     """
     loss = loss if loss is not None else StationLoss()
     where = loss.where or defn.name
-    contacts = _layout(defn)
-    known = {p.id: p for p in defn.parts}
+    plan = _plan(defn)
+    known = plan.known
     for kind, items in (
         ("remaining thickness", loss.thickness),
         ("loss band", loss.bands),
@@ -317,31 +412,49 @@ def build_pieces(
                 where=f"{where} / part {p.id!r}",
             )
         t_of[(th.part, th.leg)] = min(th.t, p.t)
+    bands_of: dict[str, list] = {}
+    for band in loss.bands:
+        bands_of.setdefault(band.part, []).append(band)
+    perfs_of: dict[str, list] = {}
+    for perf in loss.perforations:
+        perfs_of.setdefault(perf.part, []).append(perf)
 
     rects: list[tuple[float, float, float, float]] = []
     owner: list[int] = []
     for i, p in enumerate(defn.parts):
+        pid = p.id
         if isinstance(p, Plate):
-            t_base = t_of.get((p.id, None), p.t)
-            prs = _plate_rects(p, t_base, loss, contacts[p.id], where)
+            t_base = t_of.get((pid, None), p.t)
+            if t_base == p.t and pid not in bands_of and pid not in perfs_of:
+                prs = plan.nominal[i]  # no loss on this plate: the rectangles of the plan
+            else:
+                prs = _plate_rects(
+                    p,
+                    t_base,
+                    bands_of.get(pid, ()),
+                    perfs_of.get(pid, ()),
+                    plan.contacts[pid],
+                    where,
+                )
             if not prs:
                 raise GeometryError(
                     "the loss removes the whole part (no material remains)",
-                    where=f"{where} / part {p.id!r}",
+                    where=f"{where} / part {pid!r}",
                 )
-            rects.extend(prs)
-            owner.extend([i] * len(prs))
         else:
-            t_all = t_of.get((p.id, None), p.t)
-            t_h = t_of.get((p.id, "h"), t_all)
-            t_v = t_of.get((p.id, "v"), t_all)
-            for r in p.leg_rects(t_h, t_v):
-                rects.append(r)
-                owner.append(i)
-    arr = _snap(np.array(rects, dtype=float))
+            t_all = t_of.get((pid, None), p.t)
+            t_h = t_of.get((pid, "h"), t_all)
+            t_v = t_of.get((pid, "v"), t_all)
+            prs = plan.nominal[i] if t_h == p.t and t_v == p.t else p.leg_rects(t_h, t_v)
+        rects.extend(prs)
+        owner.extend([i] * len(prs))
+    # one flat list converts to an array several times faster than a list of tuples
+    arr = _snap(np.array([v for r in rects for v in r], dtype=float).reshape(-1, 4))
     own = np.array(owner, dtype=np.intp)
-    keep = (arr[:, 2] - arr[:, 0] > GRID) & (arr[:, 3] - arr[:, 1] > GRID)
-    gross = Pieces(arr[keep], own[keep], tuple(p.id for p in defn.parts))
+    keep = (arr[:, 2:] - arr[:, :2] > GRID).all(axis=1)
+    if not keep.all():
+        arr, own = arr[keep], own[keep]
+    gross = Pieces(arr, own, plan.part_ids)
     return net_pieces(defn, gross) if net else gross
 
 
@@ -355,29 +468,19 @@ def net_pieces(defn: SectionDefinition, gross: Pieces, *, exact: bool = False) -
     """
     if not defn.rivet_lines:
         return gross
-    holes = hole_rects(defn)
-    ids = [p.id for p in defn.parts]
-    pierce = np.zeros((len(holes), len(ids)), dtype=bool)
-    for j, line in enumerate(defn.rivet_lines):
-        pierce[j, [ids.index(pid) for pid in line.parts]] = True
+    plan = _plan(defn)
+    holes = plan.holes
     r = gross.rects
-    x0 = np.maximum(r[:, None, 0], holes[None, :, 0])
-    y0 = np.maximum(r[:, None, 1], holes[None, :, 1])
-    x1 = np.minimum(r[:, None, 2], holes[None, :, 2])
-    y1 = np.minimum(r[:, None, 3], holes[None, :, 3])
-    hit = (x1 - x0 > GRID) & (y1 - y0 > GRID) & pierce[:, gross.owner].T
-    i, j = np.nonzero(hit)
-    cuts = np.stack([x0[i, j], y0[i, j], x1[i, j], y1[i, j]], axis=1)
-    if not exact and len(cuts) > 1:
-        ox = np.minimum(cuts[:, None, 2], cuts[None, :, 2]) - np.maximum(
-            cuts[:, None, 0], cuts[None, :, 0]
-        )
-        oy = np.minimum(cuts[:, None, 3], cuts[None, :, 3]) - np.maximum(
-            cuts[:, None, 1], cuts[None, :, 1]
-        )
-        both = (ox > GRID) & (oy > GRID)
-        np.fill_diagonal(both, False)
-        exact = bool(both.any())
+    # candidate (piece, hole) pairs: the hole's line passes through the piece's part; in
+    # row-major order, so the cuts come piece by piece, hole by hole
+    i, j = np.nonzero(plan.pierce_t[gross.owner])
+    lo = np.maximum(r[i, :2], holes[j, :2])
+    hi = np.minimum(r[i, 2:], holes[j, 2:])
+    hit = (hi - lo > GRID).all(axis=1)
+    i = i[hit]
+    cuts = np.concatenate([lo[hit], hi[hit]], axis=1)
+    if not exact and len(cuts) > 1 and plan.cuts_may_overlap:
+        exact = _cuts_overlap(cuts)
     if exact:
         rects, owner = _deduct_holes(defn, gross.rects, gross.owner)
         keep = (rects[:, 2] - rects[:, 0] > GRID) & (rects[:, 3] - rects[:, 1] > GRID)
@@ -385,17 +488,109 @@ def net_pieces(defn: SectionDefinition, gross: Pieces, *, exact: bool = False) -
     return Pieces(gross.rects, gross.owner, gross.part_ids, cuts, gross.owner[i])
 
 
+def _cuts_overlap(cuts: np.ndarray) -> bool:
+    """True when two of the rectangles ``cuts`` (n, 4) overlap (by more than GRID each way)."""
+    ox = np.minimum(cuts[:, None, 2], cuts[None, :, 2]) - np.maximum(
+        cuts[:, None, 0], cuts[None, :, 0]
+    )
+    oy = np.minimum(cuts[:, None, 3], cuts[None, :, 3]) - np.maximum(
+        cuts[:, None, 1], cuts[None, :, 1]
+    )
+    both = (ox > GRID) & (oy > GRID)
+    np.fill_diagonal(both, False)
+    return bool(both.any())
+
+
+def _part_boxes(p: Plate | Angle) -> list[tuple[float, float, float, float]]:
+    """Rectangles that hold every piece of ``p`` whatever the loss, written with the same
+    floating-point expressions as the pieces (so that the snapped pieces lie inside the
+    snapped boxes exactly): the nominal plate; for an angle, its horizontal leg and its
+    vertical leg taken down to the heel (a thinned horizontal leg lets the vertical leg's
+    piece reach into the nominal horizontal leg)."""
+    if isinstance(p, Plate):
+        a, b = p.long_range
+        c_lo = p.y if p.orientation == "horizontal" else p.x
+        c_hi = c_lo + p.t
+        return [(a, c_lo, b, c_hi) if p.orientation == "horizontal" else (c_lo, a, c_hi, b)]
+    (hx0, hy0, hx1, hy1), (vx0, vy0, vx1, vy1) = p.leg_rects(p.t, p.t)
+    return [(hx0, hy0, hx1, hy1), (vx0, min(hy0, vy0), vx1, max(hy1, vy1))]
+
+
+def _pair_overlap(r: np.ndarray) -> np.ndarray:
+    """Overlap (2, n, n) along x and along y of every pair of rectangles ``r`` (n, 4);
+    negative for a gap."""
+    rt = np.ascontiguousarray(r.T)  # contiguous columns broadcast much faster
+    return np.minimum(rt[2:, :, None], rt[2:, None, :]) - np.maximum(
+        rt[:2, :, None], rt[:2, None, :]
+    )
+
+
+def _cuts_may_overlap(defn: SectionDefinition, holes: np.ndarray, pierce_t: np.ndarray) -> bool:
+    """False when no two hole cuts of a net section of ``defn`` can overlap, for any loss.
+
+    A cut is a piece intersected with a hole, and every piece lies inside one of its part's
+    boxes (:func:`_part_boxes`). Pieces of one part never overlap each other (plate
+    segments follow one another along the width; an angle's two legs meet along a line).
+    So two cuts can overlap only (a) on pieces of two parts whose boxes overlap, or (b) on
+    one piece cut by two holes whose common area meets a box of a part that both lines pass
+    through. When neither can happen, the overlap check of each station is skipped;
+    otherwise it runs. Overlaps are tested with half the snapping grid, a stricter test
+    than the one on the cuts themselves.
+    """
+    if len(holes) < 2:
+        return False
+    boxes, box_owner = [], []
+    for k, p in enumerate(defn.parts):
+        for bx in _part_boxes(p):
+            boxes.append(bx)
+            box_owner.append(k)
+    bx = _snap(np.array(boxes, dtype=float))
+    own = np.array(box_owner)
+    half = 0.5 * GRID
+    if ((_pair_overlap(bx) > half).all(axis=0) & (own[:, None] != own[None, :])).any():
+        return True
+    j1, j2 = np.nonzero(np.triu((_pair_overlap(holes) > half).all(axis=0), 1))
+    if len(j1) == 0:
+        return False
+    # common area of each pair of holes that meet, against each box: (pairs, boxes, 2)
+    lo = np.maximum(holes[j1, :2], holes[j2, :2])
+    hi = np.minimum(holes[j1, 2:], holes[j2, 2:])
+    inner = np.minimum(bx[None, :, 2:], hi[:, None, :]) - np.maximum(
+        bx[None, :, :2], lo[:, None, :]
+    )
+    both = (pierce_t[own][:, j1] & pierce_t[own][:, j2]).T
+    return bool(((inner > half).all(axis=2) & both).any())
+
+
 def hole_rects(defn: SectionDefinition) -> np.ndarray:
     """Rectangles (n, 4) swept by the rivet holes of every line, through its parts (mm)."""
+    return _hole_rects(defn)
+
+
+def _hole_rects(defn: SectionDefinition) -> np.ndarray:
     out = []
     idx = {p.id: p for p in defn.parts}
     for line in defn.rivet_lines:
-        b = np.array([idx[pid].bounds for pid in line.parts])
+        b = [idx[pid].bounds for pid in line.parts]
         r = 0.5 * line.d_hole
         if line.axis == "horizontal":
-            out.append((b[:, 0].min(), line.position - r, b[:, 2].max(), line.position + r))
+            out.append(
+                (
+                    min(v[0] for v in b),
+                    line.position - r,
+                    max(v[2] for v in b),
+                    line.position + r,
+                )
+            )
         else:
-            out.append((line.position - r, b[:, 1].min(), line.position + r, b[:, 3].max()))
+            out.append(
+                (
+                    line.position - r,
+                    min(v[1] for v in b),
+                    line.position + r,
+                    max(v[3] for v in b),
+                )
+            )
     return _snap(np.array(out, dtype=float).reshape(-1, 4))
 
 

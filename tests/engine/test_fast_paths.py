@@ -1,0 +1,219 @@
+"""Fast paths of the section engine give what the plain computation gives.
+
+Each check here is a property that must hold by construction (no source needed): a shortcut
+taken for speed must not change a result. The plain computations are written out in the
+tests so that the shortcut is compared with something independent of it.
+"""
+
+from __future__ import annotations
+
+import copy
+import pickle
+
+import numpy as np
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from core.definition import (
+    LossBand,
+    PartThickness,
+    Perforation,
+    RivetLine,
+    SectionDefinition,
+    StationLoss,
+    riveted_girder,
+)
+from core.geometry import (
+    GRID,
+    Pieces,
+    _cuts_overlap,
+    _plan,
+    build_pieces,
+    hole_rects,
+    net_pieces,
+)
+from core.parts import Plate
+from core.section import Section, analyse
+
+girders = st.builds(
+    lambda D, tw, leg, at, covers, ncov_b, rec, d: riveted_girder(
+        D=D,
+        tw=tw,
+        angle_h=leg,
+        angle_v=leg,
+        angle_t=at,
+        covers_top=covers,
+        covers_bottom=covers[:ncov_b],
+        web_recess=rec,
+        rivet_d=d,
+    ),
+    D=st.floats(400, 3000),
+    tw=st.floats(6, 20),
+    leg=st.floats(80, 200),
+    at=st.floats(8, 20),
+    covers=st.lists(st.tuples(st.floats(200, 600), st.floats(8, 30)), max_size=3).map(tuple),
+    ncov_b=st.integers(0, 3),
+    rec=st.floats(0, 10),
+    d=st.sampled_from([16.0, 19.0, 22.0, 25.0]),
+)
+
+
+@st.composite
+def girder_and_loss(draw):
+    defn = draw(girders)
+    web = defn.part("web")
+    thick = [PartThickness("web", web.t * draw(st.floats(0.3, 1.0)))]
+    leg = draw(st.sampled_from([None, "h", "v"]))
+    thick.append(
+        PartThickness("angle_bl", defn.part("angle_bl").t * draw(st.floats(0.3, 1.0)), leg)
+    )
+    bands = []
+    for _ in range(draw(st.integers(0, 3))):
+        lo = web.y + draw(st.floats(0.0, 0.9)) * web.b
+        f = draw(st.sampled_from([0.0, 0.5, draw(st.floats(0.05, 1.0))]))
+        bands.append(LossBand("web", lo, lo + draw(st.floats(0.01, 0.1)) * web.b, web.t * f))
+    covers = [p for p in defn.parts if p.id.startswith("cover_")]
+    if covers and draw(st.booleans()):
+        c = draw(st.sampled_from(covers))
+        lo = c.x + draw(st.floats(0.0, 0.6)) * c.b
+        bands.append(LossBand(c.id, lo, lo + 0.3 * c.b, c.t * draw(st.floats(0.0, 1.0))))
+        thick.append(PartThickness(c.id, c.t * draw(st.floats(0.4, 1.0))))
+    perfs = []
+    if draw(st.booleans()):
+        lo = web.y + draw(st.floats(0.0, 0.9)) * web.b
+        perfs.append(Perforation("web", lo, lo + 0.05 * web.b))
+    return defn, StationLoss(tuple(thick), tuple(bands), tuple(perfs))
+
+
+@settings(max_examples=60, deadline=None)
+@given(girder_and_loss())
+def test_skipped_overlap_check_would_have_found_nothing(case) -> None:
+    # When the definition's pre-check rules out overlapping hole cuts, the per-station
+    # check (skipped) finds none either, and the cuts as negative areas give the properties
+    # of the pieces cut exactly.
+    defn, loss = case
+    gross = build_pieces(defn, loss)
+    net = net_pieces(defn, gross)
+    if not _plan(defn).cuts_may_overlap:
+        assert net.has_cuts
+        assert not _cuts_overlap(net.cuts)
+    fast = Section.from_pieces(net).props
+    cut = Section.from_pieces(net_pieces(defn, gross, exact=True)).props
+    for k in ("A", "yc", "Ix", "Iy", "Zx"):
+        assert getattr(fast, k) == pytest.approx(getattr(cut, k), rel=1e-10), k
+
+
+@settings(max_examples=60, deadline=None)
+@given(girder_and_loss())
+def test_cuts_are_each_piece_against_each_hole(case) -> None:
+    # The cuts are the intersections of every piece with every hole of a line through the
+    # piece's part, written out pair by pair.
+    defn, loss = case
+    gross = build_pieces(defn, loss)
+    net = net_pieces(defn, gross)
+    if not net.has_cuts:
+        return
+    holes = hole_rects(defn)
+    expected, owners = [], []
+    for r, o in zip(gross.rects, gross.owner, strict=True):
+        for line, h in zip(defn.rivet_lines, holes, strict=True):
+            if gross.part_ids[o] not in line.parts:
+                continue
+            c = (max(r[0], h[0]), max(r[1], h[1]), min(r[2], h[2]), min(r[3], h[3]))
+            if c[2] - c[0] > GRID and c[3] - c[1] > GRID:
+                expected.append(c)
+                owners.append(o)
+    assert np.array_equal(net.cuts, np.array(expected).reshape(-1, 4))
+    assert np.array_equal(net.cut_owner, np.array(owners, dtype=int))
+
+
+def test_crossing_holes_in_one_plate_cut_the_pieces() -> None:
+    # A horizontal and a vertical line cross inside plate p: their cuts overlap, so the
+    # pieces are cut instead. Hand calculation: p loses 300x12 + 12x40 - 12x12 = 3936 mm²,
+    # q loses 12x20 = 240 mm²; kept as two negative areas p would lose 4080 mm².
+    defn = SectionDefinition(
+        (Plate("p", 300, 40, -150, 0), Plate("q", 300, 20, -150, 40)),
+        (
+            RivetLine("h", "horizontal", 20, 10, 12, 100, ("p",)),
+            RivetLine("v", "vertical", 0, 10, 12, 100, ("p", "q")),
+        ),
+        "crossing lines",
+    )
+    assert _plan(defn).cuts_may_overlap
+    st_ = analyse(defn)
+    assert not st_.net.pieces.has_cuts
+    assert pytest.approx(300 * 40 + 300 * 20 - 3936 - 240, rel=1e-12) == st_.net.props.A
+
+
+def _components_by_flood_fill(p: Pieces) -> list[tuple[str, ...]]:
+    """Connected groups by a plain flood fill over the same contact rule (shared edge of
+    positive length, or overlap)."""
+    r = p.rects.tolist()
+    n = len(r)
+
+    def touch(a, b) -> bool:
+        ox = min(a[2], b[2]) - max(a[0], b[0])
+        oy = min(a[3], b[3]) - max(a[1], b[1])
+        return (ox > 1e-6 and oy >= -1e-6) or (oy > 1e-6 and ox >= -1e-6)
+
+    seen = [False] * n
+    groups = []
+    for s in range(n):
+        if seen[s]:
+            continue
+        stack, members = [s], []
+        seen[s] = True
+        while stack:
+            k = stack.pop()
+            members.append(k)
+            for m in range(n):
+                if not seen[m] and touch(r[k], r[m]):
+                    seen[m] = True
+                    stack.append(m)
+        area = sum((r[k][2] - r[k][0]) * (r[k][3] - r[k][1]) for k in sorted(members))
+        ids = {p.part_ids[p.owner[k]] for k in members}
+        groups.append((area, tuple(q for q in p.part_ids if q in ids)))
+    groups.sort(key=lambda g: -g[0])
+    return [g for _, g in groups]
+
+
+@settings(max_examples=200, deadline=None)
+@given(
+    st.lists(
+        st.tuples(st.integers(0, 12), st.integers(0, 12), st.integers(1, 4), st.integers(1, 4)),
+        min_size=1,
+        max_size=30,
+    ),
+    st.integers(1, 5),
+)
+def test_components_equal_flood_fill(boxes, n_parts) -> None:
+    # Rectangles on an integer grid touch along edges, at corners, or not at all.
+    rects = np.array([(x, y, x + w, y + h) for x, y, w, h in boxes], dtype=float)
+    owner = np.arange(len(rects)) % n_parts
+    p = Pieces(rects, owner, tuple(f"p{k}" for k in range(n_parts)))
+    # both list groups of equal area in the order of their first piece
+    assert p.components() == _components_by_flood_fill(p)
+
+
+def test_components_of_a_chain_longer_than_a_power_of_two() -> None:
+    # 33 squares in a row, touching edge to edge: one group (the reachability closure must
+    # cover a path of 32 steps); cutting the chain in the middle gives two.
+    row = np.array([(k, 0.0, k + 1.0, 1.0) for k in range(33)])
+    one = Pieces(row, np.zeros(33, dtype=int), ("a",))
+    assert one.components() == [("a",)]
+    split = np.concatenate([row[:16], row[17:] + np.array([0.5, 0.0, 0.5, 0.0])])
+    two = Pieces(split, np.array([0] * 16 + [1] * 16), ("a", "b"))
+    assert sorted(two.components()) == [("a",), ("b",)]
+
+
+def test_definition_copies_carry_no_plan_and_analyse_alike() -> None:
+    # The plan kept on a definition is derived data: copies and pickles rebuild it, compare
+    # equal to the original, and give the same results.
+    defn = riveted_girder(D=900, tw=10, angle_h=100, angle_v=100, angle_t=10, rivet_d=20)
+    loss = StationLoss((PartThickness("web", 8.0),))
+    a = analyse(defn, loss)
+    for other in (pickle.loads(pickle.dumps(defn)), copy.deepcopy(defn), copy.copy(defn)):
+        assert other == defn
+        assert analyse(other, loss).net.props == a.net.props
+    assert hash(pickle.loads(pickle.dumps(defn))) == hash(defn)
