@@ -130,7 +130,11 @@ def station_sheet(st: Styles, s: StationResult, system: str, width: float, info:
         Paragraph(
             f"Stresses for the {esc(v_words)}; τ = VQ/(I t) on the gross section (rivet holes "
             "filled), both sides of every width change drawn, so the steps are the jumps. "
-            + (esc(s.found.finding) if not s.found.shear_applicable else ""),
+            + (
+                esc(s.found.finding[:1].upper() + s.found.finding[1:]) + "."
+                if not s.found.shear_applicable
+                else ""
+            ),
             st.caption,
         )
     )
