@@ -12,6 +12,19 @@ For a ring traversed counter-clockwise (holes clockwise), with c_i = x_i y_{i+1}
 These are the standard polygon moment formulas (e.g. Steger, "On the calculation of arbitrary
 moments of polygons", 1996). Coordinates are shifted to a reference point near the section
 before summing so that the parallel-axis transfer loses no digits.
+
+Sections made of rectangles (every section built from parts) use the same sums evaluated on
+the four edges of each rectangle in closed form (:func:`pieces_properties_and_width`): for
+[x0, x1] x [y0, y1], with w = x1 - x0 and h = y1 - y0, the four edges give exactly
+
+    A = w h,   Sx = A (y0 + y1) / 2,   Sy = A (x0 + x1) / 2,
+    Ixx = A (y0^2 + y0 y1 + y1^2) / 3,   Iyy = A (x0^2 + x0 x1 + x1^2) / 3,
+    Ixy = A (x0 + x1) (y0 + y1) / 4,
+
+because the horizontal edges have y_i = y_{i+1} and the vertical ones x_i = x_{i+1}, so each
+edge sum collapses to one product (e.g. for Ixx the two vertical edges give
+x1 (y1^3 - y0^3) / 3 - x0 (y1^3 - y0^3) / 3 and the horizontal ones nothing). A hole cut
+counts with weight -1, which is the clockwise ring of the same rectangle.
 """
 
 from __future__ import annotations
@@ -26,6 +39,13 @@ import shapely
 from core.errors import GeometryError
 from core.geometry import Pieces
 from core.shear import WidthProfile
+
+# columns of (xmin, ymin, xmax, ymax) for the corners of a rectangle's edges, in order
+_X_START = [0, 2, 2, 0]
+_Y_START = [1, 1, 3, 3]
+_X_END = [2, 2, 0, 0]
+_Y_END = [1, 3, 3, 1]
+_CLOCKWISE = [2, 1, 0, 3]
 
 
 @dataclass(frozen=True)
@@ -47,19 +67,15 @@ class Edges:
         """Edges of the pieces (counter-clockwise) and of the hole cuts (clockwise)."""
         r, own = pieces.rects, pieces.owner
         if pieces.has_cuts:
-            c = pieces.cuts
             # a clockwise rectangle: swap the x of its corners
-            r = np.concatenate([r, np.stack([c[:, 2], c[:, 1], c[:, 0], c[:, 3]], axis=1)])
+            r = np.concatenate([r, pieces.cuts[:, _CLOCKWISE]])
             own = np.concatenate([own, pieces.cut_owner])
-        X0, Y0, X1, Y1 = r[:, 0], r[:, 1], r[:, 2], r[:, 3]
-        xs = np.stack([X0, X1, X1, X0, X1, X1, X0, X0], axis=1)
-        ys = np.stack([Y0, Y0, Y1, Y1, Y0, Y1, Y1, Y0], axis=1)
-        # columns 0-3: edge start points; 4-7: edge end points
+        # per rectangle, its four edges counter-clockwise from (x0, y0): start and end points
         return cls(
-            xs[:, :4].ravel(),
-            ys[:, :4].ravel(),
-            xs[:, 4:].ravel(),
-            ys[:, 4:].ravel(),
+            r[:, _X_START].ravel(),
+            r[:, _Y_START].ravel(),
+            r[:, _X_END].ravel(),
+            r[:, _Y_END].ravel(),
             np.repeat(own, 4),
             max(len(pieces.part_ids), 1),
         )
@@ -174,6 +190,17 @@ def properties_and_width(e: Edges) -> tuple[SectionProperties, WidthProfile]:
     xr = 0.5 * (float(e.x0.min()) + float(e.x0.max()))
     yr = 0.5 * (float(e.y0.min()) + float(e.y0.max()))
     A, Sx, Sy, Ixx, Iyy, Ixy = (float(v.sum()) for v in _moments(e, xr, yr))
+    y_top = float(max(e.y0.max(), e.y1.max()))
+    y_bot = float(min(e.y0.min(), e.y1.min()))
+    return _finish(
+        (A, Sx, Sy, Ixx, Iyy, Ixy), xr, yr, y_top, y_bot, lambda yc: WidthProfile.from_edges(e, yc)
+    )
+
+
+def _finish(sums, xr, yr, y_top, y_bot, width_about) -> tuple[SectionProperties, WidthProfile]:
+    """Properties from the sums about (xr, yr) (mm): parallel-axis transfer to the centroid,
+    section moduli, and the plastic modulus on the width profile ``width_about(yc)``."""
+    A, Sx, Sy, Ixx, Iyy, Ixy = sums
     if not A > 0.0 or not math.isfinite(A):
         raise GeometryError(f"the section has no area (A = {A:g} mm²)")
     dx, dy = Sy / A, Sx / A
@@ -181,9 +208,7 @@ def properties_and_width(e: Edges) -> tuple[SectionProperties, WidthProfile]:
     Iy = Iyy - A * dx * dx
     Ixy_c = Ixy - A * dx * dy
     xc, yc = xr + dx, yr + dy
-    y_top = float(max(e.y0.max(), e.y1.max()))
-    y_bot = float(min(e.y0.min(), e.y1.min()))
-    prof = WidthProfile.from_edges(e, yc)
+    prof = width_about(yc)
     y_pna, Zx = prof.plastic(A)
     props = SectionProperties(
         A=A,
@@ -202,3 +227,85 @@ def properties_and_width(e: Edges) -> tuple[SectionProperties, WidthProfile]:
         ry=math.sqrt(Iy / A),
     )
     return props, prof
+
+
+def pieces_properties_and_width(pieces: Pieces) -> tuple[SectionProperties, WidthProfile]:
+    """Properties and width profile of ``pieces`` (rectangles, hole cuts negative), by the
+    closed-form rectangle sums of the module docstring: the same as
+    ``properties_and_width(Edges.from_pieces(pieces))`` to round-off.
+
+    Raises:
+        GeometryError: the section has no area.
+    """
+    if len(pieces.rects) == 0:
+        raise GeometryError("the section has no material (area is zero)")
+    if not pieces.has_cuts:
+        return _rect_sections(pieces.rects, len(pieces.rects), net=False)[0]
+    rows = np.concatenate([pieces.rects, pieces.cuts])
+    return _rect_sections(rows, len(pieces.rects), gross=False)[0]
+
+
+def gross_and_net_properties(
+    gross: Pieces, net: Pieces
+) -> tuple[tuple[SectionProperties, WidthProfile], tuple[SectionProperties, WidthProfile]]:
+    """:func:`pieces_properties_and_width` of a gross section and of its net section, in one
+    pass over the rectangles when the net section is the gross one with hole cuts.
+
+    Raises:
+        GeometryError: a section has no area.
+    """
+    if len(gross.rects) == 0:
+        raise GeometryError("the section has no material (area is zero)")
+    if net.rects is not gross.rects or not net.has_cuts:
+        return pieces_properties_and_width(gross), pieces_properties_and_width(net)
+    rows = np.concatenate([gross.rects, net.cuts])
+    g, n = _rect_sections(rows, len(gross.rects))
+    return g, n
+
+
+def _rect_sections(
+    rows: np.ndarray, n: int, *, gross: bool = True, net: bool = True
+) -> list[tuple[SectionProperties, WidthProfile]]:
+    """Sections of the rectangles ``rows`` (xmin, ymin, xmax, ymax): the first ``n`` are
+    material, the rest hole cuts. ``gross``: the material alone; ``net``: all rows, cuts
+    negative. Both share the reference point and the extreme fibres, since the cuts lie
+    inside the material."""
+    lo_all = rows[:, :2].min(axis=0)
+    hi_all = rows[:, 2:].max(axis=0)
+    xr, yr = (0.5 * (lo_all + hi_all)).tolist()
+    y_bot, y_top = float(lo_all[1]), float(hi_all[1])
+    d = rows - np.array([xr, yr, xr, yr])
+    lo, hi = d[:, :2], d[:, 2:]
+    w = hi - lo
+    sm = lo + hi
+    q = sm * sm - lo * hi  # lo^2 + lo hi + hi^2
+    area = w[:, 0] * w[:, 1]
+    # per section: weight of each row in the sums, and the rows and signs of its width profile
+    wanted = []
+    if gross:
+        g = np.zeros(len(rows))
+        g[:n] = 1.0
+        wanted.append((g, rows[:n], None))
+    if net:
+        s = np.ones(len(rows))
+        s[n:] = -1.0
+        wanted.append((s, rows, s))
+    WA = np.array([wt for wt, _, _ in wanted]) * area
+    A = WA.sum(axis=1).tolist()
+    S = (WA @ sm).tolist()  # per section: sum A (x0 + x1), sum A (y0 + y1)
+    Q = (WA @ q).tolist()
+    P = ((WA * sm[:, 0]) @ sm[:, 1]).tolist()
+    out = []
+    for k, (_, r, sign) in enumerate(wanted):
+        sums = (A[k], S[k][1] / 2.0, S[k][0] / 2.0, Q[k][1] / 3.0, Q[k][0] / 3.0, P[k] / 4.0)
+        out.append(
+            _finish(
+                sums,
+                xr,
+                yr,
+                y_top,
+                y_bot,
+                lambda yc, r=r, sign=sign: WidthProfile.from_rects(r, yc, sign),
+            )
+        )
+    return out

@@ -17,7 +17,13 @@ import numpy as np
 from core.definition import SectionDefinition, StationLoss
 from core.errors import GeometryError
 from core.geometry import Pieces, build_pieces, check_overlaps, net_pieces
-from core.properties import Edges, SectionProperties, part_areas, properties_and_width
+from core.properties import (
+    Edges,
+    SectionProperties,
+    gross_and_net_properties,
+    part_areas,
+    pieces_properties_and_width,
+)
 from core.shear import ShearProfile, WidthProfile, shear_flow
 
 
@@ -32,11 +38,31 @@ class Section:
 
     @classmethod
     def from_pieces(cls, pieces: Pieces) -> Section:
+        """The section of ``pieces`` (mm).
+
+        Raises:
+            GeometryError: the pieces have no area.
+        """
         if len(pieces.rects) == 0:
             raise GeometryError("the section has no material (area is zero)")
-        e = Edges.from_pieces(pieces)
-        props, width = properties_and_width(e)
-        return cls(pieces, e, props, width)
+        props, width = pieces_properties_and_width(pieces)
+        return cls(pieces, Edges.from_pieces(pieces), props, width)
+
+    @classmethod
+    def gross_and_net(cls, gross: Pieces, net: Pieces) -> tuple[Section, Section]:
+        """``from_pieces`` of a gross section and of its net section, sharing the sums over
+        the gross rectangles when the net section keeps them (hole cuts apart).
+
+        Raises:
+            GeometryError: the pieces have no area.
+        """
+        if len(gross.rects) == 0:
+            raise GeometryError("the section has no material (area is zero)")
+        (gp, gw), (npr, nw) = gross_and_net_properties(gross, net)
+        return (
+            cls(gross, Edges.from_pieces(gross), gp, gw),
+            cls(net, Edges.from_pieces(net), npr, nw),
+        )
 
     @cached_property
     def profile(self) -> ShearProfile:
@@ -138,6 +164,8 @@ def analyse(defn: SectionDefinition, loss: StationLoss | None = None) -> Station
     check_overlaps(defn)
     gp = build_pieces(defn, loss)
     comps = tuple(gp.components())
-    gross = Section.from_pieces(gp)
-    net = Section.from_pieces(net_pieces(defn, gp)) if defn.rivet_lines else gross
+    if defn.rivet_lines:
+        gross, net = Section.gross_and_net(gp, net_pieces(defn, gp))
+    else:
+        gross = net = Section.from_pieces(gp)
     return StationSection(defn, loss, gross, net, comps)

@@ -70,6 +70,34 @@ class WidthProfile:
         M_above = np.concatenate([np.cumsum(mom[::-1])[::-1], [0.0]])
         return cls(yc, U, a, b, A_above, M_above)
 
+    @classmethod
+    def from_rects(
+        cls, rects: np.ndarray, yc: float, sign: np.ndarray | None = None
+    ) -> WidthProfile:
+        """Build from axis-aligned rectangles (n, 4) ``xmin, ymin, xmax, ymax`` (mm) about the
+        height ``yc`` (mm); ``sign`` (n,) weighs each rectangle (-1 for a hole cut).
+
+        The same profile as :meth:`from_edges` on the rectangles' edges (same breakpoints,
+        widths equal to round-off): a rectangle's vertical edges add its width from its
+        bottom to its top, and its horizontal edges add nothing, so b = 0 everywhere.
+        """
+        ys = np.concatenate([rects[:, 1], rects[:, 3]])
+        Y = np.unique(ys)
+        U = Y - yc
+        K = len(Y) - 1
+        t = rects[:, 2] - rects[:, 0]
+        if sign is not None:
+            t = t * sign
+        # each rectangle adds its width from the break of its bottom, and removes it at its top
+        da = np.bincount(np.searchsorted(Y, ys), np.concatenate([t, -t]), K + 1)
+        a = np.cumsum(da)[:K]
+        ul, uh = U[:-1], U[1:]
+        area = a * (uh - ul)
+        mom = 0.5 * a * (uh * uh - ul * ul)
+        A_above = np.concatenate([np.cumsum(area[::-1])[::-1], [0.0]])
+        M_above = np.concatenate([np.cumsum(mom[::-1])[::-1], [0.0]])
+        return cls(yc, U, a, np.zeros(K), A_above, M_above)
+
     @property
     def y_breaks(self) -> np.ndarray:
         """Heights (mm) where the width may change: every vertex height."""
