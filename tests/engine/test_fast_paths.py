@@ -34,7 +34,14 @@ from core.geometry import (
     net_pieces,
 )
 from core.parts import Plate
+from core.properties import (
+    Edges,
+    gross_and_net_properties,
+    pieces_properties_and_width,
+    properties_and_width,
+)
 from core.section import Section, analyse
+from core.shear import WidthProfile
 
 girders = st.builds(
     lambda D, tw, leg, at, covers, ncov_b, rec, d: riveted_girder(
@@ -217,3 +224,59 @@ def test_definition_copies_carry_no_plan_and_analyse_alike() -> None:
         assert other == defn
         assert analyse(other, loss).net.props == a.net.props
     assert hash(pickle.loads(pickle.dumps(defn))) == hash(defn)
+
+
+PROPS = ("A", "xc", "yc", "Ix", "Iy", "Ixy", "y_top", "y_bot", "S_top", "S_bot", "Zx", "y_pna")
+
+
+def _same_props(a, b, depth: float) -> None:
+    for k in PROPS:
+        x, y = getattr(a, k), getattr(b, k)
+        if k in ("xc", "yc", "y_top", "y_bot", "y_pna"):
+            assert x == pytest.approx(y, abs=1e-12 * depth), k
+        elif k == "Ixy":
+            assert x == pytest.approx(y, abs=1e-12 * abs(a.Ix) + 1e-12 * abs(a.Iy)), k
+        else:
+            assert x == pytest.approx(y, rel=1e-12), k
+
+
+def _same_width(a: WidthProfile, b: WidthProfile) -> None:
+    assert np.allclose(a.y_breaks, b.y_breaks, rtol=0, atol=1e-9)
+    assert len(a.U) == len(b.U)
+    scale = float(np.abs(b.a).max())
+    assert np.allclose(a.a, b.a, rtol=0, atol=1e-12 * scale)
+    assert np.allclose(a.b, b.b, rtol=0, atol=1e-12)
+    for x, y in ((a.A_above, b.A_above), (a.M_above, b.M_above)):
+        assert np.allclose(x, y, rtol=0, atol=1e-12 * float(np.abs(y).max()))
+
+
+@settings(max_examples=60, deadline=None)
+@given(girder_and_loss())
+def test_rectangle_sums_equal_greens_theorem_on_the_edges(case) -> None:
+    # The closed-form rectangle sums are Green's theorem on each rectangle's four edges;
+    # the net section (cuts negative) and the gross section, computed in one pass or apart.
+    defn, loss = case
+    gross = build_pieces(defn, loss)
+    net = net_pieces(defn, gross)
+    (gp, gw), (np_, nw) = gross_and_net_properties(gross, net)
+    for pieces, props, width in ((gross, gp, gw), (net, np_, nw)):
+        ref_props, ref_width = properties_and_width(Edges.from_pieces(pieces))
+        depth = ref_props.y_top - ref_props.y_bot
+        _same_props(props, ref_props, depth)
+        _same_width(width, ref_width)
+        alone_props, alone_width = pieces_properties_and_width(pieces)
+        _same_props(alone_props, ref_props, depth)
+        _same_width(alone_width, ref_width)
+
+
+def test_width_from_rectangles_equals_width_from_edges_with_a_cut() -> None:
+    # Two stacked plates and a hole cut through the joint (negative), about a height inside.
+    rects = np.array([(0.0, 0.0, 200.0, 20.0), (50.0, 20.0, 150.0, 320.0)])
+    cut = np.array([(90.0, 10.0, 110.0, 40.0)])
+    pieces = Pieces(rects, np.array([0, 1]), ("flange", "web"), cut, np.array([1]))
+    e = Edges.from_pieces(pieces)
+    rows = np.concatenate([rects, cut])
+    w = WidthProfile.from_rects(rows, 100.0, np.array([1.0, 1.0, -1.0]))
+    _same_width(w, WidthProfile.from_edges(e, 100.0))
+    # hand values: width 200 - 20 from 10 to 20, 100 - 20 from 20 to 40, 100 above
+    assert w.width([5.0, 15.0, 30.0, 100.0]).tolist() == [200.0, 180.0, 80.0, 100.0]
