@@ -1,0 +1,7 @@
+"""``python -m fieldapp``: start the field app."""
+
+import sys
+
+from fieldapp.main import main
+
+sys.exit(main())

@@ -1,0 +1,225 @@
+"""The kivy application: screens, the open survey, live results and the keyboard.
+
+Every entry goes straight to core's field store (no save button); after each entry a
+snapshot goes to the results worker, whose answer comes back on the UI thread through
+``Clock.schedule_once`` and is shown only if it answers the newest request.
+"""
+
+from __future__ import annotations
+
+import importlib.util
+import threading
+import time
+from pathlib import Path
+
+from kivy.app import App
+from kivy.clock import Clock
+from kivy.core.window import Window
+from kivy.factory import Factory
+from kivy.lang import Builder
+from kivy.properties import BooleanProperty, ObjectProperty, StringProperty
+
+from core import CAUTION
+from core.errors import AsfoundError
+from core.survey import export_survey
+from fieldapp import screens  # noqa: F401  (registers the screen classes for kv)
+from fieldapp.live import LiveResult, ResultsWorker
+from fieldapp.places import PlaceBook
+from fieldapp.session import Session
+
+KV_DIR = Path(__file__).resolve().parent / "kv"
+KV_FILES = ("theme.kv", "pad.kv", "surveys.kv", "member.kv", "station.kv", "rivets.kv",
+            "results.kv", "root.kv")  # fmt: skip
+SCREENS = ("surveys", "member", "station", "rivets", "results")
+KEY_ENTER, KEY_PAD_ENTER, KEY_ESCAPE, KEY_BACKSPACE = 13, 271, 27, 8
+
+
+class FieldApp(App):
+    """The field app over a folder of surveys. ``survey`` opens that store at start."""
+
+    title = "asfound field"
+    screen = StringProperty("surveys")
+    has_session = BooleanProperty(False)
+    status = StringProperty("")
+    status_level = StringProperty("info")
+    result = ObjectProperty(None, allownone=True)
+    result_error = StringProperty("")
+    caution = StringProperty(CAUTION)
+
+    def __init__(self, folder: Path, survey: Path | None = None, **kw) -> None:
+        super().__init__(**kw)
+        self.folder = Path(folder)
+        self.book = PlaceBook(self.folder)
+        self.first_survey = survey
+        self.session: Session | None = None
+        self.seq = 0
+        self.asked_at = 0.0
+        self.latency = 0.0
+        self.shown_at = 0.0
+        self.posted_at = 0.0
+        self.worker: ResultsWorker | None = None
+
+    # ------------------------------------------------------------------ start and stop
+    def build(self):
+        for name in KV_FILES:
+            path = str(KV_DIR / name)
+            if path not in Builder.files:  # a second app in one process reuses the rules
+                Builder.load_file(path)
+        root = Factory.Root()
+        self.worker = ResultsWorker(self._post)
+        Window.bind(on_key_down=self._on_key)
+        Window.clearcolor = (0.98, 0.98, 0.96, 1)
+        return root
+
+    def on_start(self) -> None:
+        target = self.first_survey or self.book.last
+        if target is not None:
+            self.open_store(Path(target))
+        else:
+            self.go("surveys")
+
+    def on_stop(self) -> None:
+        Window.unbind(on_key_down=self._on_key)
+        if self.worker is not None:
+            self.worker.stop()
+        if self.session is not None:
+            self.session.close()
+            self.session = None
+
+    def screen_of(self, name: str):
+        return self.root.ids.sm.get_screen(name)
+
+    # ------------------------------------------------------------------ surveys
+    def open_store(self, path: Path) -> None:
+        self.guard(lambda: self.set_session(Session.open(path, self.book)))
+
+    def set_session(self, session: Session) -> None:
+        if self.session is not None:
+            self.session.close()
+        self.session = session
+        self.has_session = True
+        self.result = None
+        self.result_error = ""
+        where = session.screen if session.screen in SCREENS else ""
+        self.tell(f"opened {session.path.name}", "ok")
+        self.go(where or ("station" if session.station_id else "member"))
+        self.refresh_results()
+
+    def go(self, name: str) -> None:
+        """Show screen ``name`` and remember it as the place where work stopped."""
+        if name != "surveys" and self.session is None:
+            name = "surveys"
+        if name == "station" and self.session is not None and not self.session.station_id:
+            name = "member"
+            self.tell("add or choose a station first (Member screen)", "warn")
+        self.screen = name
+        self.root.ids.sm.current = name
+        if self.session is not None and name != "surveys":
+            self.session.screen = name
+            self.guard(self.session.remember)
+        self.screen_of(name).refresh()
+
+    # ------------------------------------------------------------------ entries
+    def tell(self, text: str, level: str = "info") -> None:
+        self.status, self.status_level = text, level
+
+    def guard(self, fn):
+        """Run an entry; show core's message instead of raising (the input stays as typed)."""
+        try:
+            return fn()
+        except (AsfoundError, OSError) as e:
+            self.tell(str(e), "error")
+            return None
+
+    def entry_done(self, what: str, warnings=()) -> None:
+        """After an entry reached the store: say so, show warnings, refresh the results."""
+        if warnings:
+            self.tell(f"saved {what}; " + "; ".join(w.message for w in warnings), "warn")
+        else:
+            self.tell(f"saved {what}", "ok")
+        self.refresh_results()
+
+    def undo(self) -> None:
+        if self.session is None:
+            return
+        msg = self.guard(self.session.undo)
+        if msg is not None:
+            self.tell(msg, "ok")
+            self.go(self.screen)
+            self.refresh_results()
+
+    # ------------------------------------------------------------------ live results
+    def refresh_results(self) -> None:
+        if self.session is None:
+            return
+        self.seq += 1
+        self.asked_at = time.perf_counter()
+        try:
+            snap = self.session.snapshot(self.seq)
+        except (AsfoundError, ValueError) as e:
+            self._show(self.seq, None, str(e))
+            return
+        if snap is None:
+            self._show(self.seq, None, "")
+        else:
+            self.worker.submit(snap)
+
+    def _post(self, seq: int, result: LiveResult | None, error: str) -> None:
+        """Called on the worker thread: hand over to the UI thread."""
+        self.posted_at = time.perf_counter()
+        Clock.schedule_once(lambda _dt: self._show(seq, result, error), 0)
+
+    def _show(self, seq: int, result: LiveResult | None, error: str) -> None:
+        if seq != self.seq:
+            return  # a newer entry was made meanwhile; its result follows
+        self.shown_at = time.perf_counter()
+        self.latency = self.shown_at - self.asked_at
+        self.result_error = error
+        self.result = result
+
+    # ------------------------------------------------------------------ files out
+    def out_folder(self) -> Path:
+        out = self.folder / "exports"
+        out.mkdir(exist_ok=True)
+        return out
+
+    def export_file(self) -> Path | None:
+        if self.session is None:
+            return None
+        out = self.out_folder() / (self.session.path.stem + ".json")
+        done = self.guard(lambda: export_survey(self.session.store, out))
+        if done is not None:
+            self.tell(f"survey file written: {done}", "ok")
+        return done
+
+    def make_report(self) -> threading.Thread | None:
+        """The PDF report through core's command line, in a worker thread."""
+        if self.session is None:
+            return None
+        if importlib.util.find_spec("core.cmd_report") is None:
+            self.tell("report module not available", "warn")
+            return None
+        out = self.out_folder() / (self.session.path.stem + ".pdf")
+        src = str(self.session.path)
+        self.tell("writing the PDF report ...", "info")
+
+        def work() -> None:
+            from core.cli import main as cli
+
+            try:
+                code = cli(["report", src, "-o", str(out)])
+                msg, lv = (f"report written: {out}", "ok") if code == 0 else (
+                    f"the report could not be written (exit code {code})", "error")  # fmt: skip
+            except Exception as e:  # the report module is new; show any failure
+                msg, lv = f"the report could not be written: {e}", "error"
+            Clock.schedule_once(lambda _dt: self.tell(msg, lv), 0)
+
+        t = threading.Thread(target=work, name="asfound-report", daemon=True)
+        t.start()
+        return t
+
+    # ------------------------------------------------------------------ keyboard
+    def _on_key(self, _window, key, _scancode, codepoint, _modifiers) -> bool:
+        if self.screen == "station":
+            return self.screen_of("station").key(key, codepoint or "")
+        return key == KEY_ESCAPE  # Escape never closes the app

@@ -1,0 +1,117 @@
+"""Text for the screens from core's results: formatting only, no engineering (no kivy).
+
+Numbers are core's, converted to the survey's display units by :func:`core.units.show`.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from core.assess import LimitState, StationResult
+from core.checks.flags import Flag, Level
+from core.units import show
+
+DASH = "-"
+
+#: a word and a mark for each flag level, so the level never rests on colour alone
+LEVEL_MARK = {
+    Level.OK: "OK",
+    Level.WATCH: "WATCH",
+    Level.REVIEW: "REVIEW",
+    Level.URGENT: "URGENT",
+}
+
+
+@dataclass(frozen=True)
+class Row:
+    """One limit state as text: name, as-built, as-found, ratio, RF, note."""
+
+    key: str
+    name: str
+    built: str
+    found: str
+    ratio: str
+    rf: str
+    note: str
+
+
+def capacity(value: float | None, kind: str, system: str) -> str:
+    """A capacity in the display unit of ``system`` (or a dash when absent)."""
+    if value is None:
+        return DASH
+    s = show(value, kind, system)
+    return f"{s.value:,.0f} {s.symbol}" if abs(s.value) >= 100 else f"{s.value:.3g} {s.symbol}"
+
+
+def ratio_text(value: float | None) -> str:
+    return DASH if value is None else f"{value:.3f}"
+
+
+def rf_text(value: float | None) -> str:
+    return DASH if value is None else f"{value:.2f}"
+
+
+def row(ls: LimitState, system: str) -> Row:
+    return Row(
+        ls.key,
+        ls.name,
+        capacity(ls.C_built, ls.kind, system),
+        capacity(ls.C_found, ls.kind, system),
+        ratio_text(ls.ratio),
+        rf_text(ls.RF),
+        ls.note if ls.C_found is None else "",
+    )
+
+
+def rows(sr: StationResult, system: str) -> list[Row]:
+    return [row(ls, system) for ls in sr.limit_states]
+
+
+def worst_flag(sr: StationResult) -> Flag | None:
+    """The flag of the highest level at the station (the first such one)."""
+    if not sr.flags:
+        return None
+    top = max(f.level for f in sr.flags)
+    return next(f for f in sr.flags if f.level == top)
+
+
+def flag_line(flag: Flag | None) -> str:
+    """The level as a word, what the flag is about, and core's sentence."""
+    if flag is None:
+        return "no findings"
+    about = flag.subject.split(" / ")[-1]
+    return f"[{LEVEL_MARK[flag.level]}] {about}: {flag.message}"
+
+
+def flag_head(flag: Flag | None) -> str:
+    """The level as a word and what the worst flag is about (its sentence is on Results)."""
+    if flag is None:
+        return "no findings"
+    return f"[{LEVEL_MARK[flag.level]}] {flag.level.label}: {flag.subject.split(' / ')[-1]}"
+
+
+def big(value: float) -> str:
+    """A large number without exponent notation (millions as 'x 10^6')."""
+    if abs(value) >= 1e6:
+        return f"{value / 1e6:,.1f} × 10⁶"
+    return f"{value:,.4g}" if abs(value) < 1000 else f"{value:,.0f}"
+
+
+def governing_line(sr: StationResult) -> str:
+    """The governing limit state in one line: name, ratio and RF."""
+    g = sr.governing
+    if g is None:
+        return "no limit state could be evaluated"
+    rf = f", RF {rf_text(g.RF)}" if g.RF is not None else ""
+    return f"governs: {g.name}, as-found / as-built {ratio_text(g.ratio)}{rf}"
+
+
+def loss_text(sr: StationResult, part: str) -> str:
+    """Section loss of one part at the station, per cent (core's part_loss)."""
+    v = sr.part_loss.get(part)
+    return "" if v is None else f"-{v:.0f}%"
+
+
+def length(value_mm: float, system: str) -> str:
+    s = show(value_mm, "length", system)
+    return f"{s.value:.4g} {s.symbol}"

@@ -1,0 +1,190 @@
+"""The rivet line map along the member: one row per rivet line, rivets at their positions.
+
+A stretch of the member is shown at a scale where rivets are a finger apart; an overview
+bar shows the whole member with every rivet that is not sound, and the stretch on view.
+Each rivet shows its state by letter and shape as well as colour (see ``theme.RIVET_LOOK``):
+S filled circle, L open circle, M open square, H filled square.
+"""
+
+from __future__ import annotations
+
+from kivy.graphics import Color, Ellipse, Line, Rectangle
+from kivy.metrics import dp, sp
+from kivy.properties import ListProperty, NumericProperty, StringProperty
+from kivy.uix.behaviors import ButtonBehavior
+from kivy.uix.label import Label
+from kivy.uix.widget import Widget
+
+from fieldapp import theme
+
+DOT_DP = 52  # a rivet's touch target
+LINE_LABEL_DP = 170  # width of the line names
+
+
+class RivetDot(ButtonBehavior, Label):
+    """One rivet: tap to change its state (the screen stores it through core)."""
+
+    line = StringProperty("")
+    position = NumericProperty(0.0)
+    state_name = StringProperty("sound")
+
+    def __init__(self, **kw) -> None:
+        super().__init__(**kw)
+        self.bold = True
+        self.font_size = sp(theme.BODY_SP)
+        self.bind(pos=self._draw, size=self._draw, state_name=self._draw)
+        self._draw()
+
+    def _draw(self, *_a) -> None:
+        letter, rgba, filled = theme.RIVET_LOOK[self.state_name]
+        square = self.state_name in ("missing", "headless")
+        self.text = letter
+        self.color = theme.PAPER if filled else theme.INK
+        d = min(self.width, self.height) - dp(8)
+        x, y = self.center_x - d / 2, self.center_y - d / 2
+        self.canvas.before.clear()
+        with self.canvas.before:
+            Color(*rgba)
+            if filled:
+                (Rectangle if square else Ellipse)(pos=(x, y), size=(d, d))
+            else:
+                Color(*theme.FIELD)
+                (Rectangle if square else Ellipse)(pos=(x, y), size=(d, d))
+                Color(*rgba)
+                if square:
+                    Line(rectangle=(x, y, d, d), width=dp(2.5))
+                else:
+                    Line(circle=(self.center_x, self.center_y, d / 2), width=dp(2.5))
+
+
+class Overview(Widget):
+    """The whole member as a bar: ticks at rivets that are not sound, the stretch on view
+    as a frame, the station as a triangle mark. A tap moves the stretch there."""
+
+    span = NumericProperty(1.0)
+    start = NumericProperty(0.0)
+    width_shown = NumericProperty(1.0)
+    station = NumericProperty(-1.0)
+    marks = ListProperty([])  # (position, state)
+
+    __events__ = ("on_pick",)
+
+    def __init__(self, **kw) -> None:
+        super().__init__(**kw)
+        for n in ("pos", "size", "span", "start", "width_shown", "station", "marks"):
+            self.bind(**{n: self._draw})
+
+    def on_pick(self, position: float) -> None:
+        pass
+
+    def _x(self, p: float) -> float:
+        return self.x + dp(8) + (self.width - dp(16)) * p / max(self.span, 1e-9)
+
+    def _draw(self, *_a) -> None:
+        self.canvas.clear()
+        mid = self.center_y
+        with self.canvas:
+            Color(*theme.BUTTON)
+            Rectangle(pos=(self.x, self.y), size=self.size)
+            Color(*theme.INK)
+            Line(points=[self._x(0), mid, self._x(self.span), mid], width=dp(2))
+            for p, state in self.marks:
+                Color(*theme.RIVET_LOOK[state][1])
+                Rectangle(pos=(self._x(p) - dp(1.5), mid - dp(12)), size=(dp(3), dp(24)))
+            Color(*theme.INK)
+            x0, x1 = self._x(self.start), self._x(self.start + self.width_shown)
+            Line(rectangle=(x0, self.y + dp(3), max(x1 - x0, dp(4)), self.height - dp(6)), width=2)
+            if 0 <= self.station <= self.span:
+                xs = self._x(self.station)
+                Line(points=[xs, self.y + dp(2), xs, self.top - dp(2)], width=dp(1.5))
+
+    def on_touch_down(self, touch) -> bool:
+        if not self.collide_point(*touch.pos):
+            return False
+        frac = (touch.x - self.x - dp(8)) / max(self.width - dp(16), 1.0)
+        self.dispatch("on_pick", min(max(frac, 0.0), 1.0) * self.span)
+        return True
+
+
+class StretchAxis(Widget):
+    """Positions along the stretch on view, with the station marked."""
+
+    start = NumericProperty(0.0)
+    width_shown = NumericProperty(1.0)
+    unit = StringProperty("m")
+    station = NumericProperty(-1.0)
+
+    def __init__(self, **kw) -> None:
+        super().__init__(**kw)
+        for n in ("pos", "size", "start", "width_shown", "unit", "station"):
+            self.bind(**{n: self._draw})
+
+    def _draw(self, *_a) -> None:
+        from kivy.core.text import Label as CoreLabel
+
+        self.canvas.clear()
+        x0 = self.x + dp(LINE_LABEL_DP)
+        w = self.width - dp(LINE_LABEL_DP) - dp(DOT_DP) / 2
+        right = self.x + self.width
+        with self.canvas:
+            Color(*theme.INK)
+            Line(points=[x0, self.top - dp(4), x0 + w, self.top - dp(4)], width=1.5)
+        for k in range(5):
+            p = self.start + self.width_shown * k / 4
+            x = x0 + w * k / 4
+            lab = CoreLabel(text=f"{p:.4g} {self.unit}", font_size=sp(theme.SMALL_SP))
+            lab.refresh()
+            tw, th = lab.texture.size
+            with self.canvas:
+                Color(*theme.INK)
+                Line(points=[x, self.top - dp(4), x, self.top - dp(14)], width=1.5)
+                Rectangle(
+                    texture=lab.texture,
+                    pos=(min(max(x - tw / 2, self.x), right - tw), self.y + dp(2)),
+                    size=(tw, th),
+                )
+
+
+class RivetRow(Widget):
+    """One rivet line on the stretch on view: its name, then its rivets at their positions."""
+
+    start = NumericProperty(0.0)
+    width_shown = NumericProperty(1.0)
+    line = StringProperty("")
+    summary = StringProperty("")
+
+    def __init__(self, rivets: list[tuple[float, str]], on_tap, **kw) -> None:
+        super().__init__(**kw)
+        self.size_hint_y = None
+        self.height = dp(DOT_DP + 6)
+        self.name_label = Label(
+            text="", color=theme.INK, font_size=sp(theme.SMALL_SP), halign="left", bold=True
+        )
+        self.add_widget(self.name_label)
+        self.dots: list[RivetDot] = []
+        for p, state in rivets:
+            d = RivetDot(line=self.line, position=p, state_name=state, size_hint=(None, None))
+            d.size = (dp(DOT_DP), dp(DOT_DP))
+            d.bind(on_press=on_tap)
+            self.dots.append(d)
+        for n in ("pos", "size", "start", "width_shown", "summary"):
+            self.bind(**{n: self._place})
+
+    def _place(self, *_a) -> None:
+        lab = self.name_label
+        lab.text = f"{self.line}\n{self.summary}" if self.summary else self.line
+        lab.pos, lab.size = (self.x + dp(4), self.y), (dp(LINE_LABEL_DP) - dp(8), self.height)
+        lab.text_size = lab.size
+        lab.valign = "middle"
+        x0 = self.x + dp(LINE_LABEL_DP)
+        w = self.width - dp(LINE_LABEL_DP) - dp(DOT_DP) / 2
+        end = self.start + self.width_shown * (1 + 1e-9)
+        for d in self.dots:
+            show = self.start - 1e-9 <= d.position <= end
+            if show and d.parent is None:
+                self.add_widget(d)
+            elif not show and d.parent is not None:
+                self.remove_widget(d)
+            if show:
+                x = x0 + w * (d.position - self.start) / max(self.width_shown, 1e-9)
+                d.pos = (x - dp(DOT_DP) / 2, self.y + dp(3))

@@ -1,0 +1,41 @@
+"""The app's palette and sizes: dark ink on a light ground, for reading in sunlight.
+
+Constants only (tuples, never changed at run time). Colours are RGBA in 0..1. Every state
+shown in colour is also shown by a letter or a shape (see the rivet map and flag marks).
+"""
+
+from __future__ import annotations
+
+PAPER = (0.98, 0.98, 0.96, 1.0)  # screen ground
+INK = (0.05, 0.05, 0.07, 1.0)  # text and outlines
+MUTED = (0.30, 0.30, 0.34, 1.0)  # secondary text, still dark enough in glare
+BUTTON = (0.85, 0.88, 0.91, 1.0)  # button face
+BUTTON_DOWN = (1.0, 0.80, 0.10, 1.0)  # pressed or chosen: amber
+FIELD = (1.0, 1.0, 1.0, 1.0)  # text fields
+RULE = (0.55, 0.56, 0.60, 1.0)  # thin lines, as-built outline
+STEEL = (0.18, 0.26, 0.42, 1.0)  # as-found material
+CHOSEN = (0.95, 0.55, 0.0, 1.0)  # the selected part
+WARN_BG = (1.0, 0.93, 0.70, 1.0)  # behind a warning
+ERROR_BG = (1.0, 0.84, 0.84, 1.0)  # behind an error
+OK_BG = (0.86, 0.95, 0.86, 1.0)  # behind an acknowledgement
+
+#: flag levels 0..3 (within limits .. needs immediate attention): ground colour
+LEVEL_BG = (
+    (0.84, 0.94, 0.84, 1.0),
+    (1.0, 0.95, 0.70, 1.0),
+    (1.0, 0.82, 0.60, 1.0),
+    (1.0, 0.72, 0.72, 1.0),
+)
+
+#: rivet states: (letter, fill colour, filled?) -- letter and shape as well as colour
+RIVET_LOOK = {
+    "sound": ("S", (0.20, 0.45, 0.22, 1.0), True),
+    "loose": ("L", (0.80, 0.52, 0.0, 1.0), False),
+    "missing": ("M", (0.75, 0.10, 0.10, 1.0), False),
+    "headless": ("H", (0.45, 0.20, 0.60, 1.0), True),
+}
+
+BODY_SP = 20  # body text, sp
+SMALL_SP = 18  # smallest text anywhere, sp
+TITLE_SP = 26
+TOUCH_DP = 56  # height of buttons and fields (>= 48 dp)
