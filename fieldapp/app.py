@@ -66,6 +66,7 @@ class FieldApp(App):
             if path not in Builder.files:  # a second app in one process reuses the rules
                 Builder.load_file(path)
         root = Factory.Root()
+        self.bind(result=self._result_changed, result_error=self._result_changed)
         self.worker = ResultsWorker(self._post)
         Window.bind(on_key_down=self._on_key)
         Window.clearcolor = (0.98, 0.98, 0.96, 1)
@@ -176,6 +177,10 @@ class FieldApp(App):
         self.latency = self.shown_at - self.asked_at
         self.result_error = error
         self.result = result
+
+    def _result_changed(self, *_a) -> None:
+        for name in ("station", "results"):
+            self.screen_of(name).show_result(self, self.result)
 
     # ------------------------------------------------------------------ files out
     def out_folder(self) -> Path:

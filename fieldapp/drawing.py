@@ -120,16 +120,12 @@ class SectionView(Widget):
                 self._label_part(pid, text)
 
     def _label_part(self, pid: str, text: str) -> None:
+        """A label beside the section (never over it), level with the part's middle."""
         i = self.built.part_ids.index(pid)
         rs = self.built.rects[self.built.owner == i]
-        cx = (rs[:, 0].min() + rs[:, 2].max()) / 2
         cy = (rs[:, 1].min() + rs[:, 3].max()) / 2
         x0, y0, s = self._frame
-        mid = (self._bounds[0] + self._bounds[2]) / 2
-        span = self._bounds[2] - self._bounds[0]
-        side = 0 if abs(cx - mid) < 0.05 * span else (1 if cx > mid else -1)
-        anchor = {0: "c", 1: "w", -1: "e"}[side]
-        self._text(text, x0 + s * cx, y0 + s * cy, theme.INK, anchor=anchor, box=True)
+        self._text(text, x0 + s * self._bounds[2] + dp(8), y0 + s * cy, theme.INK, "w", box=True)
 
     def _text(self, text, x, y, color, anchor="c", box=False) -> None:
         lab = CoreLabel(text=text, font_size=sp(theme.SMALL_SP), bold=True)

@@ -109,7 +109,7 @@ def governing_line(sr: StationResult) -> str:
 def loss_text(sr: StationResult, part: str) -> str:
     """Section loss of one part at the station, per cent (core's part_loss)."""
     v = sr.part_loss.get(part)
-    return "" if v is None else f"-{v:.0f}%"
+    return "" if v is None or v < 0.5 else f"-{v:.0f}%"
 
 
 def length(value_mm: float, system: str) -> str:

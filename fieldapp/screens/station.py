@@ -18,7 +18,7 @@ from core.survey import station_stats
 from core.units import from_internal
 from fieldapp import present
 
-REGION_NAMES = {"": "whole part", "h": "leg across", "v": "leg down"}
+REGION_NAMES = {"": "whole", "h": "flat leg", "v": "upright leg"}
 ESCAPE, ENTER, PAD_ENTER, BACKSPACE = 27, 13, 271, 8
 
 
@@ -53,6 +53,7 @@ class StationScreen(Screen):
             self.part = ""
         self._chips(defn)
         self._regions(defn, st)
+        self.ids.drawing.labels = {}
         self._part_info(s, st, m, defn)
         self.ids.pad.unit = s.length_unit
         self.ids.notes.text = st.notes
@@ -64,6 +65,7 @@ class StationScreen(Screen):
         box.clear_widgets()
         for p in defn.parts:
             b = Factory.Big(text=p.id, chosen=p.id == self.part, font_size="18sp")
+            b.part_id = p.id
             b.bind(on_press=partial(self._chip, p.id))
             box.add_widget(b)
 
@@ -83,7 +85,6 @@ class StationScreen(Screen):
             b = Factory.Big(text=name, chosen=k == self.region, font_size="18sp")
             b.bind(on_press=partial(self._pick_region, k))
             box.add_widget(b)
-        box.height = box.minimum_height if len(keys) > 1 else 0
 
     def _part_info(self, s, st, m, defn) -> None:
         ids = self.ids
@@ -96,7 +97,7 @@ class StationScreen(Screen):
         lu = s.length_unit
         nom = from_internal(part.t, "length", lu)
         region = REGION_NAMES.get(self.region, f"band {self.region}")
-        ids.part_title.text = f"{self.part}, {region}: nominal {nom:.4g} {lu}"
+        ids.part_title.text = f"{self.part}, {region}\nnominal {nom:.4g} {lu}"
         lo, hi = getattr(part, "long_range", (None, None))
         ids.hint.text = (
             f"{self.part} spans {from_internal(lo, 'length', lu):.4g} to "
@@ -144,9 +145,10 @@ class StationScreen(Screen):
         strip.level = f"l{int(flag.level) if flag else 0}"
         strip.text = present.flag_head(flag) + "\n" + present.governing_line(sr)
         self.ids.drawing.found = sr.found.gross.pieces
-        self.ids.drawing.labels = {
-            p: present.loss_text(sr, p) for p, v in sr.part_loss.items() if v >= 0.5
-        }
+        self.ids.drawing.labels = {self.part: present.loss_text(sr, self.part)} if self.part else {}
+        for chip in self.ids.chips.children:
+            loss = present.loss_text(sr, chip.part_id)
+            chip.text = f"{chip.part_id}  {loss}" if loss else chip.part_id
 
     # ------------------------------------------------------------------ choosing
     def choose_part(self, part_id: str) -> None:

@@ -1,0 +1,109 @@
+"""Benchmark of the field app (run on demand: ``python -m benchmarks.bench_app``).
+
+Runs the real app in a subprocess with SDL's offscreen driver (or the display when one is
+set) and measures, as the median of repeats on this machine:
+- app start to first screen: from starting the process to the first screen shown
+  (target < 3 s);
+- tap to updated result: from Enter on the pad (a reading typed on the current station of
+  the invented deck girder sample) to core's new result shown (target < 100 ms); the
+  app's own share (store write and screen update) and core's assessment time are shown too.
+"""
+
+from __future__ import annotations
+
+import os
+import statistics
+import subprocess
+import sys
+import tempfile
+import time
+from pathlib import Path
+
+from benchmarks.common import table
+
+ROOT = Path(__file__).resolve().parents[1]
+STARTS = 5
+READINGS = 25
+
+
+def _env(tmp: Path, **more: str) -> dict:
+    env = dict(os.environ)
+    env.update(
+        KIVY_HOME=str(tmp / "kivy"),
+        KIVY_NO_ARGS="1",
+        KIVY_NO_CONSOLELOG="1",
+        KIVY_NO_FILELOG="1",
+        KIVY_WINDOW="sdl2",
+        XDG_CACHE_HOME=str(tmp / "cache"),
+        PYTHONPATH=str(ROOT),
+        **more,
+    )
+    if not env.get("DISPLAY"):
+        env["SDL_VIDEODRIVER"] = "offscreen"
+    (tmp / "kivy").mkdir(parents=True, exist_ok=True)
+    return env
+
+
+def _run(args: list[str], env: dict) -> tuple[float, list[str]]:
+    t0 = time.perf_counter()
+    proc = subprocess.Popen(
+        [sys.executable, "-m", "fieldapp", *args],
+        env=env,
+        stdout=subprocess.PIPE,
+        stderr=subprocess.DEVNULL,
+        text=True,
+        cwd=ROOT,
+    )
+    lines, first = [], None
+    for line in proc.stdout:
+        if first is None and line.startswith("ready"):
+            first = time.perf_counter() - t0
+        lines.append(line.strip())
+    proc.wait(timeout=120)
+    if first is None:
+        raise RuntimeError(f"the app did not start (exit code {proc.returncode})")
+    return first, lines
+
+
+def main() -> None:
+    from core.survey import import_survey
+
+    with tempfile.TemporaryDirectory(prefix="asfound-bench-app-") as t:
+        tmp = Path(t)
+        folder = tmp / "surveys"
+        folder.mkdir()
+        starts = [
+            _run(["--dir", str(folder)], _env(tmp, ASFOUND_FIELD_EXIT="1"))[0]
+            for _ in range(STARTS)
+        ]
+        store = folder / "deck.sqlite"
+        import_survey(ROOT / "survey_samples" / "deck-girder-si.json", store)
+        env = _env(tmp, ASFOUND_FIELD_FEED=str(READINGS), ASFOUND_FIELD_EXIT="1")
+        _first, lines = _run(["--dir", str(folder), "--survey", str(store)], env)
+    res = [line.split() for line in lines if line.startswith("result ")]
+    total = [float(r[1]) for r in res[1:]]  # the first one also warms up caches
+    entry = [float(r[3]) for r in res[1:]]
+    core = [float(r[5]) for r in res[1:]]
+    start = statistics.median(starts)
+    tap = statistics.median(total)
+    rows = [
+        ("app start to first screen (median of 5)", f"{start:.2f} s", "< 3 s", _met(start < 3)),
+        (
+            f"tap to updated result (median of {len(total)})",
+            f"{tap:.0f} ms",
+            "< 100 ms",
+            _met(tap < 100),
+        ),
+        ("  of which store write and screen update", f"{statistics.median(entry):.0f} ms", "", ""),
+        ("  of which core.assess (worker thread)", f"{statistics.median(core):.0f} ms", "", ""),
+        ("tap to updated result, worst", f"{max(total):.0f} ms", "", ""),
+    ]
+    print(table(rows))
+
+
+def _met(ok: bool) -> str:
+    return "yes" if ok else "NO"
+
+
+if __name__ == "__main__":
+    main()
