@@ -52,11 +52,14 @@ def rf_text(value: float | None) -> str:
 
 
 def row(ls: LimitState, system: str) -> Row:
+    found = capacity(ls.C_found, ls.kind, system)
+    if ls.C_found is None and "not applicable" in ls.note:
+        found = "n/a (note)"
     return Row(
         ls.key,
         ls.name,
         capacity(ls.C_built, ls.kind, system),
-        capacity(ls.C_found, ls.kind, system),
+        found,
         ratio_text(ls.ratio),
         rf_text(ls.RF),
         ls.note if ls.C_found is None else "",
@@ -65,6 +68,15 @@ def row(ls: LimitState, system: str) -> Row:
 
 def rows(sr: StationResult, system: str) -> list[Row]:
     return [row(ls, system) for ls in sr.limit_states]
+
+
+def grouped_notes(rs: list[Row]) -> list[str]:
+    """The notes of the rows without an as-found value, each note once with its rows."""
+    by_note: dict[str, list[str]] = {}
+    for r in rs:
+        if r.note:
+            by_note.setdefault(r.note, []).append(r.name)
+    return [f"{', '.join(names)}: {note}" for note, names in by_note.items()]
 
 
 def worst_flag(sr: StationResult) -> Flag | None:
@@ -91,9 +103,9 @@ def flag_head(flag: Flag | None) -> str:
 
 
 def big(value: float) -> str:
-    """A large number without exponent notation (millions as 'x 10^6')."""
+    """A large number without exponent notation (the app's font has no superscript 6)."""
     if abs(value) >= 1e6:
-        return f"{value / 1e6:,.1f} × 10⁶"
+        return f"{value / 1e6:,.1f} million"
     return f"{value:,.4g}" if abs(value) < 1000 else f"{value:,.0f}"
 
 

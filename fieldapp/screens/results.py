@@ -45,7 +45,7 @@ class ResultsScreen(Screen):
         flag = present.worst_flag(sr)
         ids.worst.level = f"l{int(flag.level) if flag else 0}"
         ids.worst.text = "worst finding: " + present.flag_line(flag)
-        notes = [f"{r.name}: {r.note}" for r in present.rows(sr, result.unit_system) if r.note]
+        notes = present.grouped_notes(present.rows(sr, result.unit_system))
         ids.flags.text = "\n".join(
             [*notes, *(present.flag_line(f) for f in sorted(sr.flags, key=lambda f: -f.level))]
         )

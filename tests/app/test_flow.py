@@ -135,7 +135,7 @@ def check_results_table(d, store) -> None:
         assert rf == (f"{ls.RF:.2f}" if ls.RF is not None else "-")
         for text, value in ((built, ls.C_built), (found, ls.C_found)):
             if value is None:
-                assert text == "-"
+                assert text in ("-", "n/a (note)")
                 continue
             shown = show(value, ls.kind, "si")
             number = float(re.sub(r"[^0-9.eE+-]", "", text.split(" ")[0]))
@@ -231,3 +231,24 @@ def test_write_survey_file_and_report(field, tmp_path):
     d.until(lambda: not app.status.startswith("writing"), timeout=60)
     assert app.status.startswith("report written"), app.status
     assert (tmp_path / "exports" / "Out.pdf").read_bytes()[:5] == b"%PDF-"
+
+
+def test_add_station_and_step_between_stations(field, tmp_path):
+    d = field()
+    app = d.app
+    new_survey(d, "Steps")
+    member = d.screen("member")
+    member.ids.new_id.text, member.ids.new_pos.text = "S2", "3.5"
+    member.add_station()
+    assert app.screen == "station" and app.session.station_id == "S2"
+    assert app.session.station().position == 3.5
+    station = d.screen("station")
+    assert "S2 at 3.5 m" in station.ids.title.text
+    station.step(1)
+    assert app.session.station_id == "S1"
+    # a station beyond the member is refused with core's message; nothing is added
+    d.tap(nav(d, "member"))
+    member.ids.new_id.text, member.ids.new_pos.text = "S9", "99"
+    member.add_station()
+    assert app.status_level == "error" and "S9" in app.status
+    assert app.session.station_ids() == ["S1", "S2"]
