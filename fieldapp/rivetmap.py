@@ -8,7 +8,7 @@ S filled circle, L open circle, M open square, H filled square.
 
 from __future__ import annotations
 
-from kivy.graphics import Color, Ellipse, Line, Rectangle
+from kivy.graphics import Color, Ellipse, Line, Rectangle, Triangle
 from kivy.metrics import dp, sp
 from kivy.properties import ListProperty, NumericProperty, StringProperty
 from kivy.uix.behaviors import ButtonBehavior
@@ -129,6 +129,13 @@ class StretchAxis(Widget):
         with self.canvas:
             Color(*theme.INK)
             Line(points=[x0, self.top - dp(4), x0 + w, self.top - dp(4)], width=1.5)
+        if self.start <= self.station <= self.start + self.width_shown:
+            xs = x0 + w * (self.station - self.start) / max(self.width_shown, 1e-9)
+            with self.canvas:
+                Color(*theme.CHOSEN)
+                Triangle(
+                    points=[xs - dp(10), self.top, xs + dp(10), self.top, xs, self.top - dp(16)]
+                )
         for k in range(5):
             p = self.start + self.width_shown * k / 4
             x = x0 + w * k / 4

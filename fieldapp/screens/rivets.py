@@ -15,7 +15,7 @@ from core.units import from_internal
 from fieldapp import theme
 from fieldapp.rivetmap import DOT_DP, LINE_LABEL_DP, RivetRow
 
-GAP_DP = 8  # at least this much between neighbouring rivets on screen
+GAP_DP = 14  # at least this much between neighbouring rivets on screen
 
 
 def summary(states: list[str]) -> str:
@@ -53,7 +53,7 @@ class RivetsScreen(Screen):
         usable = max(self.width - dp(16 + LINE_LABEL_DP + DOT_DP), dp(DOT_DP))
         ncols = max(math.floor(usable / dp(DOT_DP + GAP_DP)), 2)
         self.width_shown = min(ncols * from_internal(pitch, "length", pu), self.span)
-        here = (s.path, s.member_id, s.station_id)
+        here = (s.path, s.member_id, s.station_id, self.width_shown)
         if self._centred_on != here:
             self._centred_on = here
             self.go_to(max(self.station_at, 0.0))
