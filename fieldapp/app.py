@@ -31,6 +31,7 @@ KV_DIR = Path(__file__).resolve().parent / "kv"
 KV_FILES = ("theme.kv", "pad.kv", "surveys.kv", "member.kv", "station.kv", "rivets.kv",
             "results.kv", "root.kv")  # fmt: skip
 SCREENS = ("surveys", "member", "station", "rivets", "results")
+ACK_WAIT = 0.25  # s: an entry's acknowledgement waits at most this long for its result
 KEY_ENTER, KEY_PAD_ENTER, KEY_ESCAPE, KEY_BACKSPACE = 13, 271, 27, 8
 
 
@@ -58,6 +59,8 @@ class FieldApp(App):
         self.shown_at = 0.0
         self.posted_at = 0.0
         self.worker: ResultsWorker | None = None
+        self._acks: list = []
+        self._ack_soon = Clock.create_trigger(self._flush_acks, ACK_WAIT)
 
     # ------------------------------------------------------------------ start and stop
     def build(self):
@@ -122,6 +125,8 @@ class FieldApp(App):
 
     # ------------------------------------------------------------------ entries
     def tell(self, text: str, level: str = "info") -> None:
+        """Show a message in the status line (after any acknowledgement still waiting)."""
+        self._flush_acks()
         self.status, self.status_level = text, level
 
     def guard(self, fn):
@@ -132,13 +137,25 @@ class FieldApp(App):
             self.tell(str(e), "error")
             return None
 
-    def entry_done(self, what: str, warnings=()) -> None:
-        """After an entry reached the store: say so, show warnings, refresh the results."""
-        if warnings:
-            self.tell(f"saved {what}; " + "; ".join(w.message for w in warnings), "warn")
-        else:
-            self.tell(f"saved {what}", "ok")
+    def entry_done(self, what: str, warnings=(), then=None) -> None:
+        """After an entry reached the store: refresh the results, then say so (and run
+        ``then``) together with the new result, so the screen is redrawn once (at the
+        latest after :data:`ACK_WAIT` s when the result is slow)."""
+        text = f"saved {what}" + "".join(f"; {w.message}" for w in warnings)
+
+        def ack() -> None:
+            self.status, self.status_level = text, "warn" if warnings else "ok"
+            if then is not None:
+                then()
+
+        self._acks.append(ack)
+        self._ack_soon()
         self.refresh_results()
+
+    def _flush_acks(self, *_a) -> None:
+        acks, self._acks = self._acks, []
+        for ack in acks:
+            ack()
 
     def undo(self) -> None:
         if self.session is None:
@@ -175,6 +192,7 @@ class FieldApp(App):
             return  # a newer entry was made meanwhile; its result follows
         self.shown_at = time.perf_counter()
         self.latency = self.shown_at - self.asked_at
+        self._flush_acks()
         self.result_error = error
         self.result = result
 

@@ -34,6 +34,7 @@ class SectionView(Widget):
         super().__init__(**kw)
         self._frame = (0.0, 0.0, 1.0)  # x0 (px), y0 (px), scale (px/mm)
         self._bounds = (0.0, 0.0, 1.0, 1.0)
+        self._textures: dict = {}
         for name in ("pos", "size", "built", "found", "selected", "labels", "caption"):
             self.bind(**{name: self._redraw})
 
@@ -127,10 +128,19 @@ class SectionView(Widget):
         x0, y0, s = self._frame
         self._text(text, x0 + s * self._bounds[2] + dp(8), y0 + s * cy, theme.INK, "w", box=True)
 
+    def _texture(self, text: str):
+        """The texture of ``text``, made once (each new texture costs a GPU upload)."""
+        tex = self._textures.get(text)
+        if tex is None:
+            lab = CoreLabel(text=text, font_size=sp(theme.SMALL_SP), bold=True)
+            lab.refresh()
+            tex = self._textures[text] = lab.texture
+            if len(self._textures) > 64:
+                self._textures.pop(next(iter(self._textures)))
+        return tex
+
     def _text(self, text, x, y, color, anchor="c", box=False) -> None:
-        lab = CoreLabel(text=text, font_size=sp(theme.SMALL_SP), bold=True)
-        lab.refresh()
-        tex = lab.texture
+        tex = self._texture(text)
         w, h = tex.size
         left = {"w": x, "e": x - w}.get(anchor, x - w / 2)
         with self.canvas:

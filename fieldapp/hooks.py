@@ -3,8 +3,10 @@
 ``ASFOUND_FIELD_FEED=N``: once the app shows its first screen, enter N readings on the
 current station through the same path as the pad (value typed, then Enter), one after
 the result of the previous one is shown. Prints ``ready <s>`` at the first screen,
-``ack <reading id>`` as soon as the store has the reading, ``result <ms>`` when the
-updated result is shown (from the Enter key to the result on screen), ``done`` at the end.
+``ack <reading id>`` as soon as the store has the reading, then ``result <ms> drawn <ms>
+entry <ms> core <ms>``: from the Enter key to the new result handed to the screen, and to
+the first frame drawn with it; the store write and screen update; core's assessment.
+``done`` at the end.
 ``ASFOUND_FIELD_EXIT=1`` stops the app when done (or right after ``ready``).
 """
 
@@ -15,6 +17,7 @@ import sys
 import time
 
 from kivy.clock import Clock
+from kivy.core.window import Window
 
 from core.units import from_internal
 
@@ -66,13 +69,17 @@ class Feeder:
         return f"{from_internal(t * (0.70 + 0.02 * (self.i % 10)), 'length', s.length_unit):.3f}"
 
     def next(self, *_a) -> None:
+        """Type the next value (drawn in the frames that follow), then press Enter."""
         if self.i >= self.n:
             say("done")
             if self.leave:
                 self.app.stop()
             return
+        self.station.ids.pad.text = self.value()
+        Clock.schedule_once(self.enter, 0.1)
+
+    def enter(self, *_a) -> None:
         pad = self.station.ids.pad
-        pad.text = self.value()
         seq = self.app.seq
         self.pressed = time.perf_counter()
         pad.commit()
@@ -81,25 +88,31 @@ class Feeder:
             say(f"ack {self.station.last_saved}")
         self.i += 1
         self.want = self.app.seq
-        Clock.schedule_interval(self._wait, 0)
+        Window.bind(on_flip=self._drawn)
+        self.late = Clock.schedule_once(self._timeout, 5.0)
 
-    def _wait(self, _dt) -> bool:
+    def _answered(self) -> bool:
         app = self.app
-        if app.seq != self.want:
-            return True
-        r = app.result
-        if (r is not None and r.seq == self.want) or app.result_error:
-            now = app.shown_at
-            core = 1000 * r.seconds if r is not None else 0.0
-            say(
-                f"result {1000 * (now - self.pressed):.1f} entry "
-                f"{1000 * (self.committed - self.pressed):.1f} core {core:.1f} "
-                f"wake {1000 * (now - app.posted_at):.1f}"
-            )
-            Clock.schedule_once(self.next, 0)
+        if app.seq != self.want or app.shown_at < self.pressed:
             return False
-        if time.perf_counter() - self.pressed > 5.0:
-            say("result timeout")
-            Clock.schedule_once(self.next, 0)
-            return False
-        return True
+        return (app.result is not None and app.result.seq == self.want) or bool(app.result_error)
+
+    def _drawn(self, *_a) -> None:
+        """Each frame drawn after Enter: the first one showing the new result is reported."""
+        if not self._answered():
+            return
+        Window.unbind(on_flip=self._drawn)
+        self.late.cancel()
+        now, app, r = time.perf_counter(), self.app, self.app.result
+        core = 1000 * r.seconds if r is not None else 0.0
+        say(
+            f"result {1000 * (app.shown_at - self.pressed):.1f} "
+            f"drawn {1000 * (now - self.pressed):.1f} "
+            f"entry {1000 * (self.committed - self.pressed):.1f} core {core:.1f}"
+        )
+        Clock.schedule_once(self.next, 0)
+
+    def _timeout(self, _dt) -> None:
+        Window.unbind(on_flip=self._drawn)
+        say("result timeout")
+        Clock.schedule_once(self.next, 0)

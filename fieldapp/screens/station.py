@@ -31,6 +31,7 @@ class StationScreen(Screen):
     def __init__(self, **kw) -> None:
         super().__init__(**kw)
         self._built_key = None
+        self._awaiting, self._sent = False, ""
         self._note_soon = Clock.create_trigger(self.keep_note, 1.0)
 
     # ------------------------------------------------------------------ show
@@ -201,20 +202,28 @@ class StationScreen(Screen):
         if not self.part:
             app.tell("tap a part first", "warn")
             return None
+        if self._awaiting and text == self.ids.pad.text and text == self._sent:
+            return None  # the same value sent twice before the first one was shown
         try:
             saved = app.session.add_reading(self.part, text, self.region or None)
         except AsfoundError as e:
             self.ids.warning.level, self.ids.warning.text = "error", str(e)
             return None
         self.last_saved = saved.id
-        app.entry_done(f"reading {saved.id} = {text} {app.session.length_unit} on {self.part}",
-                       saved.warnings)  # fmt: skip
-        self.ids.pad.clear()
+        self._awaiting, self._sent = True, text
+        what = f"reading {saved.id} = {text} {app.session.length_unit} on {self.part}"
+        app.entry_done(what, saved.warnings, partial(self._acknowledged, text, saved))
+        return saved.id
+
+    def _acknowledged(self, text: str, saved) -> None:
+        """The screen after a stored reading (drawn with its new result)."""
+        self._awaiting = False
+        pad = self.ids.pad
+        pad.text = pad.text[len(text) :] if pad.text.startswith(text) else pad.text
         if saved.warnings:
             self.ids.warning.level = "warn"
             self.ids.warning.text = "kept: " + "\n".join(w.message for w in saved.warnings)
         self.refresh(full=False)
-        return saved.id
 
     def add_band(self) -> None:
         ids, app = self.ids, App.get_running_app()
