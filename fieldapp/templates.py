@@ -153,14 +153,21 @@ def with_values(girder: dict, values: dict[str, float | None]) -> dict:
 
 
 def sample_files(folder: Path) -> list[Path]:
-    """Survey documents (format ``asfound.survey``) in a samples folder."""
+    """Survey documents (format ``asfound.survey``) in a samples folder that core accepts
+    (a sample of deliberate mistakes is left out)."""
+    from core.errors import AsfoundError
+    from core.survey import check_file, errors
+
     out = []
     for p in sorted(folder.glob("*.json")) if folder.is_dir() else []:
         try:
             head = json.loads(p.read_text(encoding="utf-8"))
-        except (OSError, ValueError):
+            if not (isinstance(head, dict) and head.get("format") == "asfound.survey"):
+                continue
+            model, problems = check_file(p)
+        except (OSError, ValueError, AsfoundError):
             continue
-        if isinstance(head, dict) and head.get("format") == "asfound.survey":
+        if model is not None and not errors(problems):
             out.append(p)
     return out
 

@@ -19,6 +19,10 @@ from fieldapp.templates import sample_files, samples_folder
 class SurveysScreen(Screen):
     system = StringProperty("si")
 
+    def __init__(self, **kw) -> None:
+        super().__init__(**kw)
+        self._samples: list[Path] | None = None  # checked once
+
     def refresh(self) -> None:
         app = App.get_running_app()
         self.ids.folder.text = f"Folder: {app.folder}"
@@ -37,7 +41,9 @@ class SurveysScreen(Screen):
             )
         sbox = self.ids.samples
         sbox.clear_widgets()
-        for p in sample_files(samples_folder()):
+        if self._samples is None:
+            self._samples = sample_files(samples_folder())
+        for p in self._samples:
             b = Factory.Big(text=f"Copy {p.stem}")
             b.bind(on_press=partial(self._copy, p))
             sbox.add_widget(b)

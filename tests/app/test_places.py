@@ -59,3 +59,12 @@ def test_typed_numbers():
             assert "r:" in str(e)
         else:
             raise AssertionError(bad)
+
+
+def test_only_samples_core_accepts_are_offered():
+    from fieldapp.templates import sample_files, samples_folder
+
+    names = [p.name for p in sample_files(samples_folder())]
+    assert "deck-girder-si.json" in names and "through-girder-us.json" in names
+    assert "mistakes.json" not in names  # deliberate errors: core refuses it
+    assert "section-demo-si.json" not in names  # a section file, not a survey

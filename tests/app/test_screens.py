@@ -56,3 +56,6 @@ def test_template_and_us_survey_screens(field, tmp_path):
     d.tap(nav(d, "results"))
     assert any("kip" in c.text for c in d.screen("results").ids.table.children)
     d.shot("10-results-us")
+    d.tap(nav(d, "surveys"))
+    assert len(d.screen("surveys").ids.stores.children) == 2
+    d.shot("11-surveys-list")
