@@ -93,3 +93,28 @@ def modulus(x: Number, name: str = "E", *, where: str = "") -> float:
     return internal(
         x, "stress", name, where=where, low=150_000.0, high=220_000.0, low_inclusive=True
     )
+
+
+def flanges(
+    bfc: Number | None,
+    tfc: Number | None,
+    bft: Number | None,
+    tft: Number | None,
+    *,
+    needed_for: str,
+    where: str = "",
+) -> dict[str, float]:
+    """Flange widths and thicknesses (mm) that a tension-field check needs.
+
+    Raises:
+        InputError: naming every missing one and the clause that needs it, or a value
+            out of range.
+    """
+    given = {"bfc": bfc, "tfc": tfc, "bft": bft, "tft": tft}
+    missing = [n for n, v in given.items() if v is None]
+    if missing:
+        raise InputError(
+            f"{', '.join(missing)} (flange width / thickness, mm) required for {needed_for}",
+            where=where,
+        )
+    return {n: length(v, n, where=where) for n, v in given.items()}

@@ -21,7 +21,7 @@ from __future__ import annotations
 import math
 from typing import Literal
 
-from core.checks._inputs import Number, length, modulus, stress
+from core.checks._inputs import Number, flanges, length, modulus, stress
 from core.checks.results import ENGINEER, CheckValue, ShearResult
 from core.errors import InputError
 
@@ -172,15 +172,14 @@ def web_shear(
         notes.append("end panel: no tension field action (6.10.9.3.3)")
     else:
         assert ratio is not None
-        flanges = {"bfc": bfc, "tfc": tfc, "bft": bft, "tft": tft}
-        missing = [n for n, v in flanges.items() if v is None]
-        if missing:
-            raise InputError(
-                f"{', '.join(missing)} (flange width / thickness, mm) required for the "
-                "interior-panel proportion check 6.10.9.3.2-1",
-                where=where,
-            )
-        f = {n: length(v, n, where=where) for n, v in flanges.items()}
+        f = flanges(
+            bfc,
+            tfc,
+            bft,
+            tft,
+            needed_for="the interior-panel proportion check 6.10.9.3.2-1",
+            where=where,
+        )
         prop = 2.0 * D * tw / (f["bfc"] * f["tfc"] + f["bft"] * f["tft"])
         vals.append(
             CheckValue(

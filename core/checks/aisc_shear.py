@@ -22,7 +22,7 @@ from __future__ import annotations
 
 import math
 
-from core.checks._inputs import Number, length, modulus, stress
+from core.checks._inputs import Number, flanges, length, modulus, stress
 from core.checks.aashto_shear import PANELS, Panel
 from core.checks.results import ENGINEER, CheckValue, ShearResult
 from core.errors import InputError
@@ -155,15 +155,14 @@ def web_shear(
         if h_tw <= lim:
             Vn, clause = 0.6 * Fy * Aw, "G2.2, Eq. G2-6"
         else:
-            fl = {"bfc": bfc, "tfc": tfc, "bft": bft, "tft": tft}
-            missing = [n for n, v in fl.items() if v is None]
-            if missing:
-                raise InputError(
-                    f"{', '.join(missing)} (flange width / thickness, mm) required for the "
-                    "tension field limits of AISC 360-22 G2.2",
-                    where=where,
-                )
-            f = {n: length(v, n, where=where) for n, v in fl.items()}
+            f = flanges(
+                bfc,
+                tfc,
+                bft,
+                tft,
+                needed_for="the tension field limits of AISC 360-22 G2.2",
+                where=where,
+            )
             Cv2, cv2_eq = Cv2_for(h_tw, kv, E, Fy)
             prop = 2.0 * Aw / (f["bfc"] * f["tfc"] + f["bft"] * f["tft"])
             vals += [
