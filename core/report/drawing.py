@@ -28,7 +28,7 @@ from core.report.styles import (
     SANS_BOLD,
     STEEL,
     STEEL_DARK,
-    text,
+    drawing_title,
 )
 from core.section import StationSection
 from core.units import show
@@ -236,17 +236,7 @@ def section_drawing(
     )
     m = _Map(win, box)
     if title:
-        d.add(
-            String(
-                width / 2,
-                height - 9,
-                text(title),
-                fontName=SANS_BOLD,
-                fontSize=7.5,
-                fillColor=INK,
-                textAnchor="middle",
-            )
-        )
+        d.add(drawing_title(width, height, title))
     shown = found or built
     if found is not None:
         for r in m.rects(built.gross.pieces.rects, fillColor=LOSS, strokeColor=None):

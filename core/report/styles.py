@@ -177,3 +177,18 @@ def table_style(n_head: int = 1, numeric_from: int | None = None, zebra: bool = 
 
 def make_table_style(*extra: tuple, **kw) -> TableStyle:
     return TableStyle([*table_style(**kw), *extra])
+
+
+def drawing_title(width: float, height: float, title: str):
+    """A figure's title, centred at the top of a reportlab Drawing of that size (pt)."""
+    from reportlab.graphics.shapes import String
+
+    return String(
+        width / 2,
+        height - 9,
+        text(title),
+        fontName=SANS_BOLD,
+        fontSize=7.5,
+        fillColor=INK,
+        textAnchor="middle",
+    )

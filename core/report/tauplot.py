@@ -12,7 +12,18 @@ import math
 from reportlab.graphics.shapes import Drawing, Line, PolyLine, Rect, String
 
 from core.report.fmt import num, tick
-from core.report.styles import ACCENT, INK, MUTED, PERF, RULE, SANS, SANS_BOLD, STEEL_DARK, text
+from core.report.styles import (
+    ACCENT,
+    INK,
+    MUTED,
+    PERF,
+    RULE,
+    SANS,
+    SANS_BOLD,
+    STEEL_DARK,
+    drawing_title,
+    text,
+)
 from core.section import StationSection
 from core.units import show
 
@@ -77,17 +88,7 @@ def tau_plot(
         return bottom + (top - bottom) * (v - ymin) / ((ymax - ymin) or 1.0)
 
     if title:
-        d.add(
-            String(
-                width / 2,
-                height - 9,
-                text(title),
-                fontName=SANS_BOLD,
-                fontSize=7.5,
-                fillColor=INK,
-                textAnchor="middle",
-            )
-        )
+        d.add(drawing_title(width, height, title))
     d.add(Rect(left, bottom, right - left, top - bottom, fillColor=None, strokeColor=RULE))
     for v in xt:
         d.add(Line(X(v), bottom, X(v), top, strokeColor=RULE, strokeWidth=0.3))
