@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from core.assess.inputs import Effects, WebGeometry, flange_proportions
 from core.assess.options import AssessOptions
@@ -123,6 +123,12 @@ def shear_limit_state(si: StationInput, opts: AssessOptions) -> tuple[LimitState
     """Web shear with buckling per the chosen standard, as-built and as-found."""
     D, why_D = depth_used(si.web, si.standard, opts.depth_basis)
     tw, why_t = web_thickness(si)
+    if not si.found.shear_applicable:
+        # the thinnest-cut check cannot run on a split section: the thinnest band governs
+        bands = [b for b in si.found.loss.bands if b.part == si.web.web_id and 0.0 < b.t < tw]
+        if bands:
+            b = min(bands, key=lambda b: b.t)
+            tw, why_t = b.t, f"loss band {b.lo:g} to {b.hi:g} mm governs the cut-through panel"
     kw = {"d": si.web.d_overall} if si.standard == "aisc" else {}
     sides = {}
     for label, st, t in (
@@ -131,16 +137,11 @@ def shear_limit_state(si: StationInput, opts: AssessOptions) -> tuple[LimitState
     ):
         bfc, tfc = flange_proportions(si.defn, si.web.top_parts, st.gross.part_area)
         bft, tft = flange_proportions(si.defn, si.web.bottom_parts, st.gross.part_area)
-        D_eff = D
-        if label == "found" and not st.shear_applicable:
-            cut = sum(p.hi - p.lo for p in st.loss.perforations if p.part == si.web.web_id)
-            cut += sum(b.hi - b.lo for b in st.loss.bands if b.part == si.web.web_id and b.t == 0)
-            D_eff = max(D - cut, 1.0)
-        sides[label] = web_shear(
+        res = web_shear(
             si.standard,
             Fy=si.material.Fy,
             E=si.material.E,
-            D=D_eff,
+            D=D,
             tw=t,
             panel=si.panel,
             do=si.do,
@@ -151,11 +152,44 @@ def shear_limit_state(si: StationInput, opts: AssessOptions) -> tuple[LimitState
             where=f"{si.where} / web shear ({label})",
             **kw,
         )
+        if label == "found" and not st.shear_applicable:
+            # the web is cut through: keep the buckling of the full panel, credit only the
+            # remaining depth (a shorter D would wrongly lower the slenderness)
+            cut = sum(p.hi - p.lo for p in st.loss.perforations if p.part == si.web.web_id)
+            cut += sum(b.hi - b.lo for b in st.loss.bands if b.part == si.web.web_id and b.t == 0)
+            share = max(D - cut, 0.0) / D
+            res = replace(
+                res,
+                Rn=res.Rn * share,
+                notes=(
+                    *res.notes,
+                    (
+                        f"web cut through over {cut:.0f} mm: resistance of the full panel times the "
+                        f"remaining depth share {share:.3f} (asfound estimate, no source)"
+                    ),
+                ),
+            )
+        sides[label] = res
+    capped = sides["found"].Rn > sides["built"].Rn
+    if capped:
+        # only loss was applied, yet a branch switch of the standard (e.g. the tension-field
+        # proportion limit) gives more: report no more than as-built
+        sides["found"] = replace(
+            sides["found"],
+            Rn=sides["built"].Rn,
+            notes=(
+                *sides["found"].notes,
+                "as-found resistance capped at the as-built value (the standard's branch changed "
+                "with the loss)",
+            ),
+        )
     note = f"D = {why_D}; as-found tw {tw:.3g} mm ({why_t})"
+    if capped:
+        note += "; as-found capped at as-built (the standard's branch changed with the loss)"
     if not si.found.shear_applicable:
         note += (
-            "; web perforated or worn through: as-found resistance is an estimate on the "
-            "remaining web depth, for the engineer to review"
+            "; web perforated or worn through: as-found resistance is the full panel's times "
+            "the remaining depth share, an estimate for the engineer to review"
         )
     ls = LimitState(
         "web_shear",

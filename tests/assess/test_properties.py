@@ -111,3 +111,20 @@ def test_loose_rivets_counted_when_the_engineer_says_so() -> None:
     assert lenient.members[0].stations[0].limit_state("rivets:web_bottom").ratio == pytest.approx(
         1.0
     )
+
+
+def test_perforated_web_estimate_never_exceeds_as_built() -> None:
+    # A hole through a thinned band: the estimate keeps the buckling of the full panel and
+    # credits only the remaining depth, so it cannot exceed as-built (a property that must
+    # hold; a shorter D alone would lower the slenderness and raise the elastic resistance).
+    d = copy.deepcopy(BASE)
+    m = d["members"][0]
+    m["section"]["girder"]["tw"] = 12
+    for s in m["stations"]:
+        s["bands"] = [{"id": "b", "part": "web", "lo": 250, "hi": 400, "t": 6}]
+        s["perforations"] = [{"id": "p", "part": "web", "lo": 300, "hi": 340}]
+    for st_ in assess(survey(d)).members[0].stations:
+        assert not st_.found.shear_applicable
+        ls = st_.limit_state("web_shear")
+        assert ls.ratio < 1.0
+        assert "remaining depth share" in ls.note and "governs the cut-through panel" in ls.note
