@@ -31,6 +31,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, fields
+from functools import lru_cache
 from typing import ClassVar
 
 import numpy as np
@@ -40,12 +41,25 @@ from core.errors import GeometryError
 from core.geometry import Pieces
 from core.shear import WidthProfile
 
-# columns of (xmin, ymin, xmax, ymax) for the corners of a rectangle's edges, in order
-_X_START = [0, 2, 2, 0]
-_Y_START = [1, 1, 3, 3]
-_X_END = [2, 2, 0, 0]
-_Y_END = [1, 3, 3, 1]
-_CLOCKWISE = [2, 1, 0, 3]
+# columns of (xmin, ymin, xmax, ymax) giving a rectangle's four edges counter-clockwise
+# from (xmin, ymin): start x, start y, end x, end y of each edge
+_EDGE_COLS = np.array([0, 2, 2, 0, 1, 1, 3, 3, 2, 2, 0, 0, 1, 3, 3, 1])
+# the same for a rectangle traversed clockwise (a hole): the x of its corners swapped
+_EDGE_COLS_CW = np.array([2, 1, 0, 3])[_EDGE_COLS]
+
+
+@lru_cache(maxsize=256)
+def _edge_index(n: int, m: int) -> tuple[np.ndarray, np.ndarray]:
+    """For n rectangles followed by m holes, flattened row by row: the indices (4, 4 (n + m))
+    that gather x0, y0, x1, y1 of their edges (four per rectangle, in order), and the index
+    of each edge's rectangle."""
+    cols = np.concatenate([np.tile(_EDGE_COLS, (n, 1)), np.tile(_EDGE_COLS_CW, (m, 1))])
+    idx = (np.arange(n + m)[:, None] * 4 + cols).reshape(n + m, 4, 4).transpose(1, 0, 2)
+    idx = np.ascontiguousarray(idx.reshape(4, -1))
+    rect = np.repeat(np.arange(n + m), 4)
+    idx.flags.writeable = False
+    rect.flags.writeable = False
+    return idx, rect
 
 
 @dataclass(frozen=True)
@@ -66,19 +80,15 @@ class Edges:
     def from_pieces(cls, pieces: Pieces) -> Edges:
         """Edges of the pieces (counter-clockwise) and of the hole cuts (clockwise)."""
         r, own = pieces.rects, pieces.owner
-        if pieces.has_cuts:
-            # a clockwise rectangle: swap the x of its corners
-            r = np.concatenate([r, pieces.cuts[:, _CLOCKWISE]])
+        m = len(pieces.cuts) if pieces.has_cuts else 0
+        if m:
+            flat = np.concatenate([r.ravel(), pieces.cuts.ravel()])
             own = np.concatenate([own, pieces.cut_owner])
-        # per rectangle, its four edges counter-clockwise from (x0, y0): start and end points
-        return cls(
-            r[:, _X_START].ravel(),
-            r[:, _Y_START].ravel(),
-            r[:, _X_END].ravel(),
-            r[:, _Y_END].ravel(),
-            np.repeat(own, 4),
-            max(len(pieces.part_ids), 1),
-        )
+        else:
+            flat = r.ravel()
+        idx, rect = _edge_index(len(r), m)
+        x0, y0, x1, y1 = flat.take(idx)
+        return cls(x0, y0, x1, y1, own.take(rect), max(len(pieces.part_ids), 1))
 
     @classmethod
     def from_polygons(cls, polygons: list, owners: list[int] | None = None) -> Edges:
@@ -270,42 +280,49 @@ def _rect_sections(
     material, the rest hole cuts. ``gross``: the material alone; ``net``: all rows, cuts
     negative. Both share the reference point and the extreme fibres, since the cuts lie
     inside the material."""
-    lo_all = rows[:, :2].min(axis=0)
-    hi_all = rows[:, 2:].max(axis=0)
-    xr, yr = (0.5 * (lo_all + hi_all)).tolist()
-    y_bot, y_top = float(lo_all[1]), float(hi_all[1])
-    d = rows - np.array([xr, yr, xr, yr])
-    lo, hi = d[:, :2], d[:, 2:]
+    c = np.ascontiguousarray(rows.T)  # (4, N): whole-row operations are the cheapest
+    lo_c = c.min(axis=1).tolist()
+    hi_c = c.max(axis=1).tolist()
+    xr, yr = 0.5 * (lo_c[0] + hi_c[2]), 0.5 * (lo_c[1] + hi_c[3])
+    y_bot, y_top = lo_c[1], hi_c[3]
+    d = c - np.array([[xr], [yr], [xr], [yr]])
+    lo, hi = d[:2], d[2:]
+    # per row of f: x0 + x1, y0 + y1, x0^2 + x0 x1 + x1^2, y0^2 + y0 y1 + y1^2,
+    # (x0 + x1)(y0 + y1), 1; each rectangle's area multiplies them in the sums below
+    N = len(rows)
+    f = np.empty((6, N))
+    sm = f[0:2]
+    np.add(lo, hi, out=sm)
+    q = f[2:4]
+    np.multiply(sm, sm, out=q)
+    q -= lo * hi  # (lo + hi)^2 - lo hi = lo^2 + lo hi + hi^2
+    np.multiply(sm[0], sm[1], out=f[4])
+    f[5] = 1.0
     w = hi - lo
-    sm = lo + hi
-    q = sm * sm - lo * hi  # lo^2 + lo hi + hi^2
-    area = w[:, 0] * w[:, 1]
-    # per section: weight of each row in the sums, and the rows and signs of its width profile
+    area = w[0] * w[1]
+    # row 0: the gross section (material only); row 1: the net section (cuts negative)
+    weights = np.ones((2, N))
+    weights[0, n:] = 0.0
+    weights[1, n:] = -1.0
+    sums = ((weights * area) @ f.T).tolist()
+    t = c[2] - c[0]
     wanted = []
     if gross:
-        g = np.zeros(len(rows))
-        g[:n] = 1.0
-        wanted.append((g, rows[:n], None))
+        wanted.append((0, c[1, :n], c[3, :n], t[:n]))
     if net:
-        s = np.ones(len(rows))
-        s[n:] = -1.0
-        wanted.append((s, rows, s))
-    WA = np.array([wt for wt, _, _ in wanted]) * area
-    A = WA.sum(axis=1).tolist()
-    S = (WA @ sm).tolist()  # per section: sum A (x0 + x1), sum A (y0 + y1)
-    Q = (WA @ q).tolist()
-    P = ((WA * sm[:, 0]) @ sm[:, 1]).tolist()
+        wanted.append((1, c[1], c[3], t * weights[1]))
     out = []
-    for k, (_, r, sign) in enumerate(wanted):
-        sums = (A[k], S[k][1] / 2.0, S[k][0] / 2.0, Q[k][1] / 3.0, Q[k][0] / 3.0, P[k] / 4.0)
+    for k, y0, y1, tk in wanted:
+        # sum of area times: x0 + x1, y0 + y1, x0^2 + x0 x1 + x1^2, ..., (x0 + x1)(y0 + y1), 1
+        ax, ay, aqx, aqy, axy, A = sums[k]
         out.append(
             _finish(
-                sums,
+                (A, ay / 2.0, ax / 2.0, aqy / 3.0, aqx / 3.0, axy / 4.0),
                 xr,
                 yr,
                 y_top,
                 y_bot,
-                lambda yc, r=r, sign=sign: WidthProfile.from_rects(r, yc, sign),
+                lambda yc, y0=y0, y1=y1, tk=tk: WidthProfile.from_columns(y0, y1, tk, yc),
             )
         )
     return out

@@ -81,22 +81,33 @@ class WidthProfile:
         widths equal to round-off): a rectangle's vertical edges add its width from its
         bottom to its top, and its horizontal edges add nothing, so b = 0 everywhere.
         """
-        ys = np.concatenate([rects[:, 1], rects[:, 3]])
-        Y = np.unique(ys)
-        U = Y - yc
-        K = len(Y) - 1
         t = rects[:, 2] - rects[:, 0]
-        if sign is not None:
-            t = t * sign
-        # each rectangle adds its width from the break of its bottom, and removes it at its top
-        da = np.bincount(np.searchsorted(Y, ys), np.concatenate([t, -t]), K + 1)
-        a = np.cumsum(da)[:K]
-        ul, uh = U[:-1], U[1:]
-        area = a * (uh - ul)
-        mom = 0.5 * a * (uh * uh - ul * ul)
-        A_above = np.concatenate([np.cumsum(area[::-1])[::-1], [0.0]])
-        M_above = np.concatenate([np.cumsum(mom[::-1])[::-1], [0.0]])
-        return cls(yc, U, a, np.zeros(K), A_above, M_above)
+        return cls.from_columns(rects[:, 1], rects[:, 3], t if sign is None else t * sign, yc)
+
+    @classmethod
+    def from_columns(cls, y0: np.ndarray, y1: np.ndarray, t: np.ndarray, yc: float) -> WidthProfile:
+        """:meth:`from_rects` given each rectangle's bottom ``y0``, top ``y1`` and (signed)
+        width ``t`` (mm), about the height ``yc`` (mm)."""
+        ys = np.concatenate([y0, y1])
+        s = np.sort(ys)
+        first = np.empty(len(s), dtype=bool)
+        first[:1] = True
+        np.not_equal(s[1:], s[:-1], out=first[1:])
+        Y = s[first]  # the distinct heights, as np.unique gives them
+        K = len(Y) - 1
+        # each rectangle adds its width from the break of its bottom and removes it at its top
+        da = np.bincount(Y.searchsorted(ys), np.concatenate([t, -t]), K + 1)
+        a = np.add.accumulate(da[:K])
+        U = Y - yc
+        # area and first moment of each interval, then both summed from the top down;
+        # (0.5 u_h^2 - 0.5 u_l^2) a equals 0.5 a (u_h^2 - u_l^2) exactly: halving is exact
+        half_sq = 0.5 * U * U
+        per = np.empty((2, K + 1))
+        per[:, K] = 0.0
+        np.multiply(a, U[1:] - U[:-1], out=per[0, :K])
+        np.multiply(a, half_sq[1:] - half_sq[:-1], out=per[1, :K])
+        above = np.add.accumulate(per[:, ::-1], axis=1)[:, ::-1]
+        return cls(yc, U, a, np.zeros(K), above[0], above[1])
 
     @property
     def y_breaks(self) -> np.ndarray:
