@@ -85,6 +85,7 @@ class Pieces:
         if label is None:  # one piece of material
             present = set(self.owner.tolist())
             return [tuple(p for k, p in enumerate(self.part_ids) if k in present)]
+        label = np.array(label)
         area = (r[:, 2] - r[:, 0]) * (r[:, 3] - r[:, 1])
         groups = []
         for lab in np.unique(label):
@@ -105,23 +106,29 @@ class Pieces:
         return out
 
 
-def _component_labels(adj: np.ndarray) -> np.ndarray | None:
+def _component_labels(adj: np.ndarray) -> list[int] | None:
     """Connected components of the graph with the symmetric, reflexive adjacency ``adj``
     (n, n): None when all nodes form one component, else each node's label, the smallest
-    node index of its component.
-
-    Squaring the reachability matrix doubles the path length it covers, so
-    ceil(log2(n - 1)) squarings give the transitive closure.
-    """
+    node index of its component (a flood fill from each node not yet reached, in order)."""
     n = len(adj)
-    reach = adj.astype(np.float32)
-    for _ in range(max(n - 2, 0).bit_length()):
-        if reach[0].all():
+    ii, jj = np.nonzero(adj)  # row by row, so node k's neighbours are jj[start[k]:start[k+1]]
+    start = ii.searchsorted(np.arange(n + 1)).tolist()
+    nb = jj.tolist()
+    label = [-1] * n
+    for first in range(n):
+        if label[first] >= 0:
+            continue
+        label[first] = first
+        stack = [first]
+        while stack:
+            k = stack.pop()
+            for m in nb[start[k] : start[k + 1]]:
+                if label[m] < 0:
+                    label[m] = first
+                    stack.append(m)
+        if first == 0 and label.count(0) == n:
             return None
-        reach = np.minimum(reach @ reach, 1.0, dtype=np.float32)  # stays 0 or 1
-    if reach[0].all():
-        return None
-    return np.argmax(reach > 0, axis=1)
+    return label
 
 
 def _snap(v: np.ndarray | float) -> np.ndarray:
@@ -149,6 +156,8 @@ class _Plan:
         pierce_t: (n_parts, n_lines) True where a line passes through a part.
         cuts_may_overlap: False when no two hole cuts of any net section of this definition
             can overlap (see :func:`_cuts_may_overlap`), so the check is skipped.
+        tiny_angles: True when an angle has a leg length, thickness or leg length beyond
+            the thickness of 2 TOL or less, so that a leg might snap to nothing.
     """
 
     __slots__ = (
@@ -160,6 +169,7 @@ class _Plan:
         "nominal",
         "part_ids",
         "pierce_t",
+        "tiny_angles",
     )
 
     def __init__(self, defn: SectionDefinition) -> None:
@@ -183,6 +193,9 @@ class _Plan:
         pierce.flags.writeable = False
         self.pierce_t = pierce
         self.cuts_may_overlap = _cuts_may_overlap(defn, self.holes, pierce)
+        self.tiny_angles = any(
+            min(p.b_h, p.b_v - p.t, p.t) <= 2.0 * TOL for p in defn.parts if isinstance(p, Angle)
+        )
 
     def __reduce__(self):
         # derived data: a pickled or copied definition carries no plan and builds its own
@@ -356,8 +369,10 @@ def _plate_rects(
         mid = 0.5 * (lo + hi)
         if perfs and _covered(perfs, mid):
             continue
-        loss_lo = 0.0 if _covered(lo_c, mid) else gauge_lo
-        loss_hi = 0.0 if _covered(hi_c, mid) else gauge_hi
+        # a face lying against another part keeps its place (no need to look when the
+        # gauge removes nothing: the loss is 0 either way)
+        loss_lo = 0.0 if gauge_lo and _covered(lo_c, mid) else gauge_lo
+        loss_hi = 0.0 if gauge_hi and _covered(hi_c, mid) else gauge_hi
         for blo, bhi, b_lo, b_hi in band_loss:
             if blo <= mid <= bhi:
                 loss_lo = max(loss_lo, b_lo)
@@ -432,6 +447,10 @@ def build_pieces(
 
     rects: list[tuple[float, float, float, float]] = []
     owner: list[int] = []
+    # plate pieces are longer and thicker than TOL before snapping (see _plate_rects) and
+    # snapping moves a coordinate by less than GRID, so none can vanish; an angle leg can
+    # only when the definition or the loss makes a dimension tiny
+    may_vanish = plan.tiny_angles
     for i, p in enumerate(defn.parts):
         pid = p.id
         if isinstance(p, Plate):
@@ -456,15 +475,20 @@ def build_pieces(
             t_all = t_of.get((pid, None), p.t)
             t_h = t_of.get((pid, "h"), t_all)
             t_v = t_of.get((pid, "v"), t_all)
-            prs = plan.nominal[i] if t_h == p.t and t_v == p.t else p.leg_rects(t_h, t_v)
+            if t_h == p.t and t_v == p.t:
+                prs = plan.nominal[i]
+            else:
+                prs = p.leg_rects(t_h, t_v)
+                may_vanish = may_vanish or min(t_h, t_v) <= 2.0 * TOL
         rects.extend(prs)
         owner.extend([i] * len(prs))
     # one flat list converts to an array several times faster than a list of tuples
     arr = _snap(np.array([v for r in rects for v in r], dtype=float).reshape(-1, 4))
     own = np.array(owner, dtype=np.intp)
-    keep = (arr[:, 2] - arr[:, 0] > GRID) & (arr[:, 3] - arr[:, 1] > GRID)
-    if not keep.all():
-        arr, own = arr[keep], own[keep]
+    if may_vanish:
+        keep = (arr[:, 2] - arr[:, 0] > GRID) & (arr[:, 3] - arr[:, 1] > GRID)
+        if not keep.all():
+            arr, own = arr[keep], own[keep]
     gross = Pieces(arr, own, plan.part_ids)
     return net_pieces(defn, gross) if net else gross
 

@@ -280,3 +280,19 @@ def test_width_from_rectangles_equals_width_from_edges_with_a_cut() -> None:
     _same_width(w, WidthProfile.from_edges(e, 100.0))
     # hand values: width 200 - 20 from 10 to 20, 100 - 20 from 20 to 40, 100 above
     assert w.width([5.0, 15.0, 30.0, 100.0]).tolist() == [200.0, 180.0, 80.0, 100.0]
+
+
+@pytest.mark.parametrize("t_leg", [4e-10, 1.5e-6, 3.0])
+def test_pieces_that_snap_to_nothing_are_dropped(t_leg) -> None:
+    # An angle leg thinner than the snapping grid leaves no piece; every piece kept has a
+    # positive size, and the areas add up to the hand sum of the legs.
+    defn = riveted_girder(D=900, tw=10, angle_h=100, angle_v=100, angle_t=10)
+    st_ = analyse(defn, StationLoss((PartThickness("angle_bl", t_leg, "h"),)))
+    r = st_.gross.pieces.rects
+    assert ((r[:, 2] - r[:, 0] > GRID) & (r[:, 3] - r[:, 1] > GRID)).all()
+    legs = st_.gross.pieces.of("angle_bl")
+    assert len(legs) == (1 if t_leg < GRID else 2)
+    # hand sum: horizontal leg 100 x t_leg (if any) and vertical leg 10 x (100 - t_leg)
+    area = ((legs[:, 2] - legs[:, 0]) * (legs[:, 3] - legs[:, 1])).sum()
+    expected = (100 * t_leg if t_leg >= GRID else 0.0) + 10 * (100 - t_leg)
+    assert area == pytest.approx(expected, rel=1e-9)
