@@ -91,6 +91,12 @@ class Edges:
         return cls(x0, y0, x1, y1, own.take(rect), max(len(pieces.part_ids), 1))
 
     @classmethod
+    def deferred(cls, pieces: Pieces) -> Edges:
+        """:meth:`from_pieces`, gathered when a field is first read: a section built from
+        pieces takes its properties from the rectangle sums, so its edges are seldom read."""
+        return _PiecesEdges(pieces)
+
+    @classmethod
     def from_polygons(cls, polygons: list, owners: list[int] | None = None) -> Edges:
         """Edges of shapely polygons (holes allowed). Rings are oriented here, since GEOS may
         return exterior rings clockwise, and the jump between rings is dropped."""
@@ -112,6 +118,29 @@ class Edges:
         b = np.concatenate([p[1] for p in parts])
         own = np.concatenate([np.full(len(p[0]), p[2]) for p in parts])
         return cls(a[:, 0], a[:, 1], b[:, 0], b[:, 1], own, int(max(owners)) + 1)
+
+
+_EDGE_FIELDS = frozenset(("x0", "y0", "x1", "y1", "owner", "n_parts"))
+
+
+class _PiecesEdges(Edges):
+    """:class:`Edges` of some pieces, gathered on the first read of any field."""
+
+    def __init__(self, pieces: Pieces | None = None, /, **fields) -> None:
+        if fields:  # built field by field (e.g. by dataclasses.replace)
+            super().__init__(**fields)
+        else:
+            object.__setattr__(self, "_pieces", pieces)
+
+    def __getattr__(self, name: str):
+        # reached only for attributes not set: the fields, until they are first read
+        pieces = self.__dict__.get("_pieces")
+        if pieces is None or name not in _EDGE_FIELDS:
+            raise AttributeError(name)
+        full = Edges.from_pieces(pieces)
+        for f in _EDGE_FIELDS:
+            object.__setattr__(self, f, getattr(full, f))
+        return getattr(full, name)
 
 
 @dataclass(frozen=True)
@@ -180,6 +209,23 @@ def part_areas(e: Edges) -> tuple[np.ndarray, np.ndarray]:
         np.bincount(e.owner, weights=A, minlength=e.n_parts),
         np.bincount(e.owner, weights=Sx, minlength=e.n_parts),
     )
+
+
+def pieces_part_areas(pieces: Pieces) -> tuple[np.ndarray, np.ndarray]:
+    """Per part: area (mm^2) and first moment about y = 0 (mm^3) of ``pieces``, hole cuts
+    negative, by the rectangle sums (A = w h, Sx = A (y0 + y1) / 2): the same as
+    ``part_areas(Edges.from_pieces(pieces))`` to round-off."""
+    r, own = pieces.rects, pieces.owner
+    A = (r[:, 2] - r[:, 0]) * (r[:, 3] - r[:, 1])
+    Sx = 0.5 * A * (r[:, 1] + r[:, 3])
+    if pieces.has_cuts:
+        c = pieces.cuts
+        Ac = (c[:, 2] - c[:, 0]) * (c[:, 3] - c[:, 1])
+        A = np.concatenate([A, -Ac])
+        Sx = np.concatenate([Sx, -0.5 * Ac * (c[:, 1] + c[:, 3])])
+        own = np.concatenate([own, pieces.cut_owner])
+    n = max(len(pieces.part_ids), 1)
+    return np.bincount(own, A, n), np.bincount(own, Sx, n)
 
 
 def section_properties(e: Edges) -> SectionProperties:

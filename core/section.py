@@ -21,7 +21,7 @@ from core.properties import (
     Edges,
     SectionProperties,
     gross_and_net_properties,
-    part_areas,
+    pieces_part_areas,
     pieces_properties_and_width,
 )
 from core.shear import ShearProfile, WidthProfile, shear_flow
@@ -46,7 +46,7 @@ class Section:
         if len(pieces.rects) == 0:
             raise GeometryError("the section has no material (area is zero)")
         props, width = pieces_properties_and_width(pieces)
-        return cls(pieces, Edges.from_pieces(pieces), props, width)
+        return cls(pieces, Edges.deferred(pieces), props, width)
 
     @classmethod
     def gross_and_net(cls, gross: Pieces, net: Pieces) -> tuple[Section, Section]:
@@ -60,8 +60,8 @@ class Section:
             raise GeometryError("the section has no material (area is zero)")
         (gp, gw), (npr, nw) = gross_and_net_properties(gross, net)
         return (
-            cls(gross, Edges.from_pieces(gross), gp, gw),
-            cls(net, Edges.from_pieces(net), npr, nw),
+            cls(gross, Edges.deferred(gross), gp, gw),
+            cls(net, Edges.deferred(net), npr, nw),
         )
 
     @cached_property
@@ -70,14 +70,19 @@ class Section:
         return ShearProfile(self.width, self.props.Ix)
 
     @cached_property
+    def _part_sums(self) -> tuple[np.ndarray, np.ndarray]:
+        """Per part: area (mm^2) and first moment about y = 0 (mm^3)."""
+        return pieces_part_areas(self.pieces)
+
+    @cached_property
     def part_area(self) -> dict[str, float]:
         """Remaining area of each part, mm^2."""
-        A, _ = part_areas(self.edges)
+        A, _ = self._part_sums
         return dict(zip(self.pieces.part_ids, map(float, A), strict=True))
 
     def Q_of(self, part_ids) -> float:
         """First moment (mm^3) of the given parts about this section's neutral axis."""
-        A, Sx = part_areas(self.edges)
+        A, Sx = self._part_sums
         idx = [self.pieces.part_ids.index(p) for p in part_ids]
         return float(np.sum(Sx[idx]) - self.props.yc * np.sum(A[idx]))
 

@@ -8,6 +8,7 @@ tests so that the shortcut is compared with something independent of it.
 from __future__ import annotations
 
 import copy
+import dataclasses
 import pickle
 
 import numpy as np
@@ -37,6 +38,8 @@ from core.parts import Plate
 from core.properties import (
     Edges,
     gross_and_net_properties,
+    part_areas,
+    pieces_part_areas,
     pieces_properties_and_width,
     properties_and_width,
 )
@@ -296,3 +299,44 @@ def test_pieces_that_snap_to_nothing_are_dropped(t_leg) -> None:
     area = ((legs[:, 2] - legs[:, 0]) * (legs[:, 3] - legs[:, 1])).sum()
     expected = (100 * t_leg if t_leg >= GRID else 0.0) + 10 * (100 - t_leg)
     assert area == pytest.approx(expected, rel=1e-9)
+
+
+EDGE_FIELDS = ("x0", "y0", "x1", "y1", "owner")
+
+
+@settings(max_examples=30, deadline=None)
+@given(girder_and_loss())
+def test_deferred_edges_and_part_sums_equal_the_edge_sums(case) -> None:
+    # A section's edges are gathered on first read and equal Edges.from_pieces; the per-part
+    # area and first moment from the rectangles equal Green's theorem on those edges.
+    defn, loss = case
+    st_ = analyse(defn, loss)
+    for sec in (st_.gross, st_.net):
+        eager = Edges.from_pieces(sec.pieces)
+        for k in EDGE_FIELDS:
+            assert np.array_equal(getattr(sec.edges, k), getattr(eager, k)), k
+        assert sec.edges.n_parts == eager.n_parts
+        A, Sx = pieces_part_areas(sec.pieces)
+        A_ref, Sx_ref = part_areas(eager)
+        assert np.allclose(A, A_ref, rtol=1e-12, atol=1e-9)
+        depth = sec.props.y_top - sec.props.y_bot
+        assert np.allclose(Sx, Sx_ref, rtol=1e-12, atol=1e-12 * sec.props.A * depth)
+
+
+def test_deferred_edges_copy_pickle_and_replace() -> None:
+    # Deferred edges behave as plain Edges when copied, pickled or rebuilt field by field.
+    defn = riveted_girder(D=900, tw=10, angle_h=100, angle_v=100, angle_t=10, rivet_d=20)
+    net = analyse(defn).net
+    eager = Edges.from_pieces(net.pieces)
+    for e in (
+        pickle.loads(pickle.dumps(net.edges)),
+        copy.deepcopy(net.edges),
+        Edges.deferred(net.pieces),
+    ):
+        assert isinstance(e, Edges)
+        for k in EDGE_FIELDS:
+            assert np.array_equal(getattr(e, k), getattr(eager, k)), k
+    moved = dataclasses.replace(net.edges, x0=net.edges.x0 + 1.0)
+    assert np.array_equal(moved.x0, eager.x0 + 1.0) and np.array_equal(moved.y1, eager.y1)
+    with pytest.raises(AttributeError):
+        _ = net.edges.not_a_field
