@@ -135,8 +135,11 @@ def _snap(v: np.ndarray | float) -> np.ndarray:
     return np.round(np.asarray(v, dtype=float) / GRID) * GRID
 
 
-#: key under which the per-definition plan is kept in a definition's ``__dict__``
+#: key under which the per-definition plan is kept in a definition's ``__dict__`` (and in
+#: the ``__dict__`` of the pieces built with it)
 _PLAN_KEY = "_asfound_section_plan"
+#: key set in the ``__dict__`` of net pieces whose cuts each lie inside a piece
+CUTS_WITHIN_PIECES = "_asfound_cuts_within_pieces"
 
 
 class _Plan:
@@ -490,6 +493,8 @@ def build_pieces(
         if not keep.all():
             arr, own = arr[keep], own[keep]
     gross = Pieces(arr, own, plan.part_ids)
+    # mark the pieces as this plan's, which the shortcuts of net_pieces rely on
+    gross.__dict__[_PLAN_KEY] = plan
     return net_pieces(defn, gross) if net else gross
 
 
@@ -517,13 +522,18 @@ def net_pieces(defn: SectionDefinition, gross: Pieces, *, exact: bool = False) -
     size = c[2:] - c[:2]
     hit = (size[0] > GRID) & (size[1] > GRID)
     i, cuts = i[hit], np.ascontiguousarray(c[:, hit].T)
-    if not exact and len(cuts) > 1 and plan.cuts_may_overlap:
+    # pieces built by build_pieces for this definition need the check only when the
+    # definition allows overlapping cuts; any other pieces always get it
+    check = plan.cuts_may_overlap or gross.__dict__.get(_PLAN_KEY) is not plan
+    if not exact and len(cuts) > 1 and check:
         exact = _cuts_overlap(cuts)
     if exact:
         rects, owner = _deduct_holes(defn, gross.rects, gross.owner)
         keep = (rects[:, 2] - rects[:, 0] > GRID) & (rects[:, 3] - rects[:, 1] > GRID)
         return Pieces(rects[keep], owner[keep], gross.part_ids)
-    return Pieces(gross.rects, gross.owner, gross.part_ids, cuts, gross.owner.take(i))
+    net = Pieces(gross.rects, gross.owner, gross.part_ids, cuts, gross.owner.take(i))
+    net.__dict__[CUTS_WITHIN_PIECES] = True  # each cut is a piece intersected with a hole
+    return net
 
 
 def _cuts_overlap(cuts: np.ndarray) -> bool:

@@ -38,7 +38,7 @@ import numpy as np
 import shapely
 
 from core.errors import GeometryError
-from core.geometry import Pieces
+from core.geometry import CUTS_WITHIN_PIECES, Pieces
 from core.shear import WidthProfile
 
 # columns of (xmin, ymin, xmax, ymax) giving a rectangle's four edges counter-clockwise
@@ -305,18 +305,19 @@ def gross_and_net_properties(
     gross: Pieces, net: Pieces
 ) -> tuple[tuple[SectionProperties, WidthProfile], tuple[SectionProperties, WidthProfile]]:
     """:func:`pieces_properties_and_width` of a gross section and of its net section, in one
-    pass over the rectangles when the net section is the gross one with hole cuts.
+    pass over the rectangles when the net section is the gross one with the hole cuts of
+    :func:`core.geometry.net_pieces`.
 
     Raises:
         GeometryError: a section has no area.
     """
     if len(gross.rects) == 0:
         raise GeometryError("the section has no material (area is zero)")
-    if net.rects is not gross.rects or not net.has_cuts:
-        return pieces_properties_and_width(gross), pieces_properties_and_width(net)
-    rows = np.concatenate([gross.rects, net.cuts])
-    g, n = _rect_sections(rows, len(gross.rects))
-    return g, n
+    if net.rects is gross.rects and net.has_cuts and net.__dict__.get(CUTS_WITHIN_PIECES):
+        rows = np.concatenate([gross.rects, net.cuts])
+        g, n = _rect_sections(rows, len(gross.rects))
+        return g, n
+    return pieces_properties_and_width(gross), pieces_properties_and_width(net)
 
 
 def _rect_sections(
@@ -324,8 +325,8 @@ def _rect_sections(
 ) -> list[tuple[SectionProperties, WidthProfile]]:
     """Sections of the rectangles ``rows`` (xmin, ymin, xmax, ymax): the first ``n`` are
     material, the rest hole cuts. ``gross``: the material alone; ``net``: all rows, cuts
-    negative. Both share the reference point and the extreme fibres, since the cuts lie
-    inside the material."""
+    negative. Both share the reference point and the extreme fibres, so when both are asked
+    the cuts must lie inside the material (as the cuts of :func:`net_pieces` do)."""
     c = np.ascontiguousarray(rows.T)  # (4, N): whole-row operations are the cheapest
     lo_c = c.min(axis=1).tolist()
     hi_c = c.max(axis=1).tolist()

@@ -340,3 +340,35 @@ def test_deferred_edges_copy_pickle_and_replace() -> None:
     assert np.array_equal(moved.x0, eager.x0 + 1.0) and np.array_equal(moved.y1, eager.y1)
     with pytest.raises(AttributeError):
         _ = net.edges.not_a_field
+
+
+def test_hand_made_pieces_get_the_full_checks() -> None:
+    # The shortcuts hold for pieces built by build_pieces / net_pieces only. Hand-made gross
+    # pieces with two overlapping rectangles under one hole get the overlap check (and the
+    # pieces cut exactly); hand-made cuts beyond the material are not shared with the gross.
+    defn = SectionDefinition(
+        (Plate("p", 200, 20, -100, 0), Plate("q", 200, 20, -100, 20)),
+        (RivetLine("v", "vertical", 0, 10, 12, 100, ("p", "q")),),
+        "two plates",
+    )
+    assert not _plan(defn).cuts_may_overlap
+    made = Pieces(
+        np.array([(-100.0, 0.0, 100.0, 20.0), (-100.0, 10.0, 100.0, 40.0)]),
+        np.array([0, 1]),
+        ("p", "q"),
+    )
+    assert not net_pieces(defn, made).has_cuts
+    built = build_pieces(defn)
+    assert net_pieces(defn, built).has_cuts
+    # cuts below the material: the gross section must not see them
+    outside = Pieces(
+        built.rects,
+        built.owner,
+        built.part_ids,
+        np.array([(-6.0, -30.0, 6.0, -10.0)]),
+        np.array([0]),
+    )
+    g, n = Section.gross_and_net(built, outside)
+    assert g.props == Section.from_pieces(built).props
+    assert n.props == Section.from_pieces(outside).props
+    assert g.props.y_bot == 0.0 and n.props.y_bot == -30.0
