@@ -11,7 +11,6 @@ together in one piece.
 
 from __future__ import annotations
 
-import itertools
 from dataclasses import dataclass
 from functools import lru_cache
 
@@ -20,13 +19,30 @@ import shapely
 
 from core.definition import SectionDefinition, StationLoss
 from core.errors import GeometryError
+from core.grid import GRID, TOL
+from core.grid import snap as _snap
+from core.holes import (
+    _cuts_may_overlap,
+    _cuts_overlap,
+    _deduct_holes,
+    _hole_rects,
+    _pair_overlap,
+    hole_rects,
+)
 from core.parts import Angle, Plate
+from core.plateloss import plate_rects
 
-#: coordinates are snapped to this grid (mm) so that touching parts built from
-#: floating-point sums neither overlap by an ulp nor leave 1-ulp gaps
-GRID = 1e-9
-#: tolerance (mm) on thickness above nominal and on ranges given in a loss
-TOL = 1e-6
+__all__ = [
+    "GRID",
+    "OVERLAP_AREA",
+    "TOL",
+    "Pieces",
+    "build_pieces",
+    "check_overlaps",
+    "hole_rects",
+    "net_pieces",
+]
+
 #: overlap area (mm^2) above which two parts are said to overlap
 OVERLAP_AREA = 1e-3
 
@@ -131,10 +147,6 @@ def _component_labels(adj: np.ndarray) -> list[int] | None:
     return label
 
 
-def _snap(v: np.ndarray | float) -> np.ndarray:
-    return np.round(np.asarray(v, dtype=float) / GRID) * GRID
-
-
 #: key under which the per-definition plan is kept in a definition's ``__dict__`` (and in
 #: the ``__dict__`` of the pieces built with it)
 _PLAN_KEY = "_asfound_section_plan"
@@ -180,7 +192,7 @@ class _Plan:
         self.known = {p.id: p for p in defn.parts}
         self.contacts = _layout(defn)
         self.nominal = [
-            _plate_rects(p, p.t, (), (), self.contacts[p.id], defn.name)
+            plate_rects(p, p.t, (), (), self.contacts[p.id], defn.name)
             if isinstance(p, Plate)
             else list(p.leg_rects(p.t, p.t))
             for p in defn.parts
@@ -294,102 +306,6 @@ def _nominal_rects(p: Plate | Angle) -> list[tuple[float, float, float, float]]:
     return list(p.leg_rects(p.t, p.t))
 
 
-def _covered(intervals: list, mid: float) -> bool:
-    # a plain loop: several times faster than any() over a generator for a few intervals
-    for lo, hi in intervals:  # noqa: SIM110
-        if lo <= mid <= hi:
-            return True
-    return False
-
-
-def _face_share(p: Plate) -> tuple[float, float]:
-    """Share of a thickness loss taken by the low and the high face."""
-    return {"centre": (0.5, 0.5), "low": (0.0, 1.0), "high": (1.0, 0.0)}[p.kept_face]
-
-
-def _plate_rects(
-    p: Plate,
-    t_base: float,
-    bands_of: tuple | list,
-    perfs_of: tuple | list,
-    contacts: tuple[list, list],
-    where: str,
-) -> list[tuple[float, float, float, float]]:
-    """Rectangles of a plate with its loss applied (``bands_of`` and ``perfs_of``: the loss
-    bands and perforations of this plate, in the order given).
-
-    A uniform remaining thickness (a gauge reading) thins only the faces that are exposed:
-    where another part lies against a face (a faying surface, e.g. the web gripped between
-    the flange angles) that face keeps its place. Loss bands are explicit measurements and
-    thin the plate over their range whatever lies against it; perforations remove it.
-    """
-    a, b = p.long_range
-    w = f"{where} / part {p.id!r}"
-    cuts = {a, b}
-    bands = []
-    perfs = []
-    for band in bands_of:
-        if band.lo < a - TOL or band.hi > b + TOL:
-            raise GeometryError(
-                f"loss band {band.lo:g} to {band.hi:g} mm lies outside the plate "
-                f"({a:g} to {b:g} mm)",
-                where=w,
-            )
-        if band.t > p.t + TOL:
-            raise GeometryError(
-                f"loss band remaining thickness {band.t:g} mm is above the nominal "
-                f"{p.t:g} mm (allowed 0 to {p.t:g} mm)",
-                where=w,
-            )
-        lo, hi = max(band.lo, a), min(band.hi, b)
-        bands.append((lo, hi, band.t))
-        cuts.update((lo, hi))
-    for perf in perfs_of:
-        if perf.lo < a - TOL or perf.hi > b + TOL:
-            raise GeometryError(
-                f"perforation {perf.lo:g} to {perf.hi:g} mm lies outside the plate "
-                f"({a:g} to {b:g} mm)",
-                where=w,
-            )
-        lo, hi = max(perf.lo, a), min(perf.hi, b)
-        perfs.append((lo, hi))
-        cuts.update((lo, hi))
-    lo_c, hi_c = contacts
-    if t_base < p.t:
-        for lo, hi in (*lo_c, *hi_c):
-            cuts.update((lo, hi))
-    s_lo, s_hi = _face_share(p)
-    horizontal = p.orientation == "horizontal"
-    c_lo = p.y if horizontal else p.x
-    c_hi = c_lo + p.t
-    d = p.t - t_base
-    gauge_lo, gauge_hi = s_lo * d, s_hi * d  # loss of each exposed face from the gauge reading
-    band_loss = [(blo, bhi, s_lo * (p.t - bt), s_hi * (p.t - bt)) for blo, bhi, bt in bands]
-    out = []
-    for lo, hi in itertools.pairwise(sorted(cuts)):
-        if hi - lo <= TOL:
-            continue
-        mid = 0.5 * (lo + hi)
-        if perfs and _covered(perfs, mid):
-            continue
-        # a face lying against another part keeps its place (no need to look when the
-        # gauge removes nothing: the loss is 0 either way)
-        loss_lo = 0.0 if gauge_lo and _covered(lo_c, mid) else gauge_lo
-        loss_hi = 0.0 if gauge_hi and _covered(hi_c, mid) else gauge_hi
-        for blo, bhi, b_lo, b_hi in band_loss:
-            if blo <= mid <= bhi:
-                loss_lo = max(loss_lo, b_lo)
-                loss_hi = max(loss_hi, b_hi)
-        t0, t1 = c_lo + loss_lo, c_hi - loss_hi
-        if t1 - t0 <= TOL:
-            continue
-        if horizontal:
-            out.append((lo, t0, hi, t1))
-        else:
-            out.append((t0, lo, t1, hi))
-    return out
-
-
 def build_pieces(
     defn: SectionDefinition, loss: StationLoss | None = None, *, net: bool = False
 ) -> Pieces:
@@ -450,7 +366,7 @@ def build_pieces(
 
     rects: list[tuple[float, float, float, float]] = []
     owner: list[int] = []
-    # plate pieces are longer and thicker than TOL before snapping (see _plate_rects) and
+    # plate pieces are longer and thicker than TOL before snapping (see plate_rects) and
     # snapping moves a coordinate by less than GRID, so none can vanish; an angle leg can
     # only when the definition or the loss makes a dimension tiny
     may_vanish = plan.tiny_angles
@@ -461,7 +377,7 @@ def build_pieces(
             if t_base == p.t and pid not in bands_of and pid not in perfs_of:
                 prs = plan.nominal[i]  # no loss on this plate: the rectangles of the plan
             else:
-                prs = _plate_rects(
+                prs = plate_rects(
                     p,
                     t_base,
                     bands_of.get(pid, ()),
@@ -534,153 +450,3 @@ def net_pieces(defn: SectionDefinition, gross: Pieces, *, exact: bool = False) -
     net = Pieces(gross.rects, gross.owner, gross.part_ids, cuts, gross.owner.take(i))
     net.__dict__[CUTS_WITHIN_PIECES] = True  # each cut is a piece intersected with a hole
     return net
-
-
-def _cuts_overlap(cuts: np.ndarray) -> bool:
-    """True when two of the rectangles ``cuts`` (n, 4) overlap (by more than GRID each way)."""
-    ox = np.minimum(cuts[:, None, 2], cuts[None, :, 2]) - np.maximum(
-        cuts[:, None, 0], cuts[None, :, 0]
-    )
-    oy = np.minimum(cuts[:, None, 3], cuts[None, :, 3]) - np.maximum(
-        cuts[:, None, 1], cuts[None, :, 1]
-    )
-    both = (ox > GRID) & (oy > GRID)
-    np.fill_diagonal(both, False)
-    return bool(both.any())
-
-
-def _part_boxes(p: Plate | Angle) -> list[tuple[float, float, float, float]]:
-    """Rectangles that hold every piece of ``p`` whatever the loss, written with the same
-    floating-point expressions as the pieces (so that the snapped pieces lie inside the
-    snapped boxes exactly): the nominal plate; for an angle, its horizontal leg and its
-    vertical leg taken down to the heel (a thinned horizontal leg lets the vertical leg's
-    piece reach into the nominal horizontal leg)."""
-    if isinstance(p, Plate):
-        a, b = p.long_range
-        c_lo = p.y if p.orientation == "horizontal" else p.x
-        c_hi = c_lo + p.t
-        return [(a, c_lo, b, c_hi) if p.orientation == "horizontal" else (c_lo, a, c_hi, b)]
-    (hx0, hy0, hx1, hy1), (vx0, vy0, vx1, vy1) = p.leg_rects(p.t, p.t)
-    return [(hx0, hy0, hx1, hy1), (vx0, min(hy0, vy0), vx1, max(hy1, vy1))]
-
-
-def _pair_overlap(r: np.ndarray) -> np.ndarray:
-    """Overlap (2, n, n) along x and along y of every pair of rectangles ``r`` (n, 4);
-    negative for a gap."""
-    rt = np.ascontiguousarray(r.T)  # contiguous columns broadcast much faster
-    return np.minimum(rt[2:, :, None], rt[2:, None, :]) - np.maximum(
-        rt[:2, :, None], rt[:2, None, :]
-    )
-
-
-def _cuts_may_overlap(defn: SectionDefinition, holes: np.ndarray, pierce_t: np.ndarray) -> bool:
-    """False when no two hole cuts of a net section of ``defn`` can overlap, for any loss.
-
-    A cut is a piece intersected with a hole, and every piece lies inside one of its part's
-    boxes (:func:`_part_boxes`). Pieces of one part never overlap each other (plate
-    segments follow one another along the width; an angle's two legs meet along a line).
-    So two cuts can overlap only (a) on pieces of two parts whose boxes overlap, or (b) on
-    one piece cut by two holes whose common area meets a box of a part that both lines pass
-    through. When neither can happen, the overlap check of each station is skipped;
-    otherwise it runs. Overlaps are tested with half the snapping grid, a stricter test
-    than the one on the cuts themselves.
-    """
-    if len(holes) < 2:
-        return False
-    boxes, box_owner = [], []
-    for k, p in enumerate(defn.parts):
-        for bx in _part_boxes(p):
-            boxes.append(bx)
-            box_owner.append(k)
-    bx = _snap(np.array(boxes, dtype=float))
-    own = np.array(box_owner)
-    half = 0.5 * GRID
-    if ((_pair_overlap(bx) > half).all(axis=0) & (own[:, None] != own[None, :])).any():
-        return True
-    j1, j2 = np.nonzero(np.triu((_pair_overlap(holes) > half).all(axis=0), 1))
-    if len(j1) == 0:
-        return False
-    # common area of each pair of holes that meet, against each box: (pairs, boxes, 2)
-    lo = np.maximum(holes[j1, :2], holes[j2, :2])
-    hi = np.minimum(holes[j1, 2:], holes[j2, 2:])
-    inner = np.minimum(bx[None, :, 2:], hi[:, None, :]) - np.maximum(
-        bx[None, :, :2], lo[:, None, :]
-    )
-    both = (pierce_t[own][:, j1] & pierce_t[own][:, j2]).T
-    return bool(((inner > half).all(axis=2) & both).any())
-
-
-def hole_rects(defn: SectionDefinition) -> np.ndarray:
-    """Rectangles (n, 4) swept by the rivet holes of every line, through its parts (mm)."""
-    return _hole_rects(defn)
-
-
-def _hole_rects(defn: SectionDefinition) -> np.ndarray:
-    out = []
-    idx = {p.id: p for p in defn.parts}
-    for line in defn.rivet_lines:
-        b = [idx[pid].bounds for pid in line.parts]
-        r = 0.5 * line.d_hole
-        if line.axis == "horizontal":
-            out.append(
-                (
-                    min(v[0] for v in b),
-                    line.position - r,
-                    max(v[2] for v in b),
-                    line.position + r,
-                )
-            )
-        else:
-            out.append(
-                (
-                    line.position - r,
-                    min(v[1] for v in b),
-                    line.position + r,
-                    max(v[3] for v in b),
-                )
-            )
-    return _snap(np.array(out, dtype=float).reshape(-1, 4))
-
-
-def _deduct_holes(
-    defn: SectionDefinition, rects: np.ndarray, owner: np.ndarray
-) -> tuple[np.ndarray, np.ndarray]:
-    """Subtract each line's hole rectangle from the pieces of the parts it pierces."""
-    holes = hole_rects(defn)
-    ids = [p.id for p in defn.parts]
-    for line, h in zip(defn.rivet_lines, holes, strict=True):
-        pierced = np.isin(owner, [ids.index(pid) for pid in line.parts])
-        hit = (
-            pierced
-            & (rects[:, 0] < h[2])
-            & (rects[:, 2] > h[0])
-            & (rects[:, 1] < h[3])
-            & (rects[:, 3] > h[1])
-        )
-        if not hit.any():
-            continue
-        new_r, new_o = [rects[~hit]], [owner[~hit]]
-        for r, o in zip(rects[hit], owner[hit], strict=True):
-            parts = _rect_minus(r, h)
-            if parts:
-                new_r.append(np.array(parts))
-                new_o.append(np.full(len(parts), o))
-        rects = np.concatenate(new_r)
-        owner = np.concatenate(new_o)
-    return rects, owner
-
-
-def _rect_minus(r: np.ndarray, h: np.ndarray) -> list[tuple[float, float, float, float]]:
-    """Rectangle r minus rectangle h, as up to four disjoint rectangles."""
-    x0, y0, x1, y1 = r
-    hx0, hy0, hx1, hy1 = max(h[0], x0), max(h[1], y0), min(h[2], x1), min(h[3], y1)
-    out = []
-    if hy0 > y0:
-        out.append((x0, y0, x1, hy0))
-    if hy1 < y1:
-        out.append((x0, hy1, x1, y1))
-    if hx0 > x0:
-        out.append((x0, hy0, hx0, hy1))
-    if hx1 < x1:
-        out.append((hx1, hy0, x1, hy1))
-    return out
