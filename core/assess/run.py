@@ -136,10 +136,22 @@ def assumptions(
             PRACTICE,
         ),
         Assumption(
-            "as-found web thickness for shear",
-            "the smallest of the mean web reading and "
-            "any loss band on the web at the station; a band governs the whole panel",
-            PRACTICE + " (conservative)",
+            "as-found web thickness for panel shear",
+            "the mean web reading at the station (buckling and yield of the panel); where the "
+            "web is cut through, the thinnest loss band on it",
+            PRACTICE,
+        ),
+        Assumption(
+            "loss bands on the web",
+            "checked at the thinnest cut: the as-built panel resistance times "
+            "min(1, tau_max,built / tau_max,found), tau from VQ/It",
+            "asfound method, no source: engineer to review",
+        ),
+        Assumption(
+            "web cut through (perforation or band worn through)",
+            "VQ/It not applicable; panel resistance of the full depth times the share of the "
+            "depth that remains",
+            "asfound estimate, no source: engineer to review",
         ),
         Assumption(
             "effective rivets",

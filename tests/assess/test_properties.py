@@ -128,3 +128,13 @@ def test_perforated_web_estimate_never_exceeds_as_built() -> None:
         ls = st_.limit_state("web_shear")
         assert ls.ratio < 1.0
         assert "remaining depth share" in ls.note and "governs the cut-through panel" in ls.note
+
+
+def test_assumptions_name_the_web_methods_with_their_sources() -> None:
+    # Every method of asfound's own is listed with "no source" for the engineer to judge.
+    a = assess(survey(sample_doc()))
+    items = {x.item: x for x in a.assumptions}
+    assert "mean web reading" in items["as-found web thickness for panel shear"].value
+    assert items["loss bands on the web"].source.startswith("asfound method, no source")
+    assert "no source" in items["web cut through (perforation or band worn through)"].source
+    assert "from memory" in items["rating factors"].source
