@@ -13,7 +13,6 @@ set) and measures, as the median of repeats on this machine:
 
 from __future__ import annotations
 
-import os
 import statistics
 import subprocess
 import sys
@@ -22,28 +21,11 @@ import time
 from pathlib import Path
 
 from benchmarks.common import table
+from fieldapp.main import headless_env
 
 ROOT = Path(__file__).resolve().parents[1]
 STARTS = 5
 READINGS = 25
-
-
-def _env(tmp: Path, **more: str) -> dict:
-    env = dict(os.environ)
-    env.update(
-        KIVY_HOME=str(tmp / "kivy"),
-        KIVY_NO_ARGS="1",
-        KIVY_NO_CONSOLELOG="1",
-        KIVY_NO_FILELOG="1",
-        KIVY_WINDOW="sdl2",
-        XDG_CACHE_HOME=str(tmp / "cache"),
-        PYTHONPATH=str(ROOT),
-        **more,
-    )
-    if not env.get("DISPLAY"):
-        env["SDL_VIDEODRIVER"] = "offscreen"
-    (tmp / "kivy").mkdir(parents=True, exist_ok=True)
-    return env
 
 
 def _run(args: list[str], env: dict) -> tuple[float, list[str]]:
@@ -75,12 +57,12 @@ def main() -> None:
         folder = tmp / "surveys"
         folder.mkdir()
         starts = [
-            _run(["--dir", str(folder)], _env(tmp, ASFOUND_FIELD_EXIT="1"))[0]
+            _run(["--dir", str(folder)], headless_env(tmp, ASFOUND_FIELD_EXIT="1"))[0]
             for _ in range(STARTS)
         ]
         store = folder / "deck.sqlite"
         import_survey(ROOT / "survey_samples" / "deck-girder-si.json", store)
-        env = _env(tmp, ASFOUND_FIELD_FEED=str(READINGS), ASFOUND_FIELD_EXIT="1")
+        env = headless_env(tmp, ASFOUND_FIELD_FEED=str(READINGS), ASFOUND_FIELD_EXIT="1")
         _first, lines = _run(["--dir", str(folder), "--survey", str(store)], env)
     res = [line.split() for line in lines if line.startswith("result ")]
     total = [float(r[1]) for r in res[1:]]  # the first one also warms up caches

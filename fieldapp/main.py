@@ -30,6 +30,27 @@ def build_parser() -> argparse.ArgumentParser:
     return p
 
 
+def headless_env(home: Path, **more: str) -> dict[str, str]:
+    """Environment for running the app in a child process without a screen (tests and
+    benchmarks): kivy's home and Mesa's cache under ``home``, no kivy logs, SDL's offscreen
+    driver when there is no display, and this checkout on the path."""
+    env = dict(os.environ)
+    env.update(
+        KIVY_HOME=str(home / "kivy"),
+        KIVY_NO_ARGS="1",
+        KIVY_NO_CONSOLELOG="1",
+        KIVY_NO_FILELOG="1",
+        KIVY_WINDOW="sdl2",
+        XDG_CACHE_HOME=str(home / "cache"),
+        PYTHONPATH=str(Path(__file__).resolve().parents[1]),
+        **more,
+    )
+    if not env.get("DISPLAY"):
+        env["SDL_VIDEODRIVER"] = "offscreen"
+    (home / "kivy").mkdir(parents=True, exist_ok=True)
+    return env
+
+
 def configure_kivy() -> None:
     """Kivy settings needed before its window exists: our own command line, a tablet-sized
     window, and Escape kept for the pad (it never closes the app)."""

@@ -12,27 +12,10 @@ import time
 import pytest
 
 from core.survey import FieldStore, import_survey
+from fieldapp.main import headless_env
 from tests.app.conftest import ROOT, SAMPLES
 
 pytestmark = pytest.mark.gui
-
-
-def app_env(tmp_path, **more) -> dict:
-    env = dict(os.environ)
-    env.update(
-        KIVY_HOME=str(tmp_path / "kivy"),
-        KIVY_NO_ARGS="1",
-        KIVY_NO_CONSOLELOG="1",
-        KIVY_NO_FILELOG="1",
-        KIVY_WINDOW="sdl2",
-        XDG_CACHE_HOME=str(tmp_path / "cache"),
-        PYTHONPATH=str(ROOT),
-        **more,
-    )
-    if not env.get("DISPLAY"):
-        env["SDL_VIDEODRIVER"] = "offscreen"
-    (tmp_path / "kivy").mkdir(exist_ok=True)
-    return env
 
 
 def test_sigkill_mid_entry_keeps_every_acknowledged_reading(tmp_path):
@@ -43,7 +26,7 @@ def test_sigkill_mid_entry_keeps_every_acknowledged_reading(tmp_path):
         before = {r.id for r in s.station("G1", "S1").readings}
     proc = subprocess.Popen(
         [sys.executable, "-m", "fieldapp", "--dir", str(store.parent), "--survey", str(store)],
-        env=app_env(tmp_path, ASFOUND_FIELD_FEED="200"),
+        env=headless_env(tmp_path, ASFOUND_FIELD_FEED="200"),
         stdout=subprocess.PIPE,
         stderr=subprocess.DEVNULL,
         text=True,
