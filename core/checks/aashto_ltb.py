@@ -34,7 +34,7 @@ from core.checks._inputs import Number, internal, length, modulus, stress
 from core.checks.aashto_flange import PHI_F, yield_onset
 from core.checks.elastic_support import critical_load
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
-from core.checks.sources import AASHTO_LRFD, factor
+from core.checks.sources import AASHTO_LRFD, factor, member_length
 from core.errors import InputError
 
 CB_MAX = 2.3
@@ -213,6 +213,8 @@ def u_frame_unbraced_length(
     """
     E = modulus(E, where=where)
     I = internal(I_chord, "inertia", "I_chord", where=where, low=0.0, high=1e15)
-    col = critical_load(EI=E * I, L=length(span, "span", where=where), springs=frames, where=where)
+    col = critical_load(
+        EI=E * I, L=member_length(span, "span", where=where), springs=frames, where=where
+    )
     src = _ref("6.14.2.9 (by analogy: compression chord on elastic lateral supports)")
     return col.Le, col.values(src)

@@ -97,3 +97,12 @@ def choice(value: str, allowed: Iterable[str], name: str, *, where: str = "") ->
     if value not in allowed:
         raise InputError(f"{name} = {value!r} is not one of {list(allowed)}", where=where)
     return value
+
+
+def member_length(x: object, name: str, *, where: str = "") -> float:
+    """A positive length along a member (span, unbraced length), mm, at most 1 km.
+
+    Raises:
+        InputError: not a finite length in range.
+    """
+    return internal(x, "length", name, where=where, low=0.0, high=1e6)
