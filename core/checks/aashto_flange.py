@@ -28,12 +28,11 @@ from __future__ import annotations
 
 import math
 from collections.abc import Sequence
-from dataclasses import dataclass
-from typing import Literal
 
 from core.checks._inputs import Number, internal, length, modulus, stress
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
-from core.checks.sources import AASHTO_LRFD, choice, factor
+from core.checks.riveted_flange import FlangeElement, plate_flange
+from core.checks.sources import AASHTO_LRFD, factor
 from core.errors import InputError
 
 #: resistance factor for flexure, 6.5.4.2 (from memory)
@@ -41,44 +40,20 @@ PHI_F = 1.00
 #: internal element limit 1.40 sqrt(E/Fy), 6.9.4.2.1 (from memory)
 K_INTERNAL = 1.40
 
-ElementKind = Literal["outstand", "internal"]
+__all__ = [
+    "K_INTERNAL",
+    "PHI_F",
+    "FlangeElement",
+    "flange_local_buckling",
+    "plate_flange",
+    "web_bend_buckling",
+    "web_load_shedding",
+    "yield_onset",
+]
 
 
 def _ref(clause: str) -> str:
     return AASHTO_LRFD.ref(clause)
-
-
-@dataclass(frozen=True)
-class FlangeElement:
-    """One plate element of a compression flange (mm).
-
-    Attributes:
-        name: label (``"angle_tl horizontal leg"``, ``"cover_top_1 outstand"``).
-        b: its width: an outstand from its supported edge (web, heel or rivet line) to the
-            free edge; an internal element between its rivet lines.
-        t: its thickness (as found).
-        kind: ``"outstand"`` or ``"internal"``.
-    """
-
-    name: str
-    b: float
-    t: float
-    kind: ElementKind = "outstand"
-
-    def __post_init__(self) -> None:
-        w = f"flange element {self.name!r}"
-        object.__setattr__(self, "b", length(self.b, "b", where=w))
-        object.__setattr__(self, "t", length(self.t, "t", where=w))
-        choice(self.kind, ("outstand", "internal"), "kind", where=w)
-
-    @property
-    def slenderness(self) -> float:
-        return self.b / self.t
-
-
-def plate_flange(bfc: Number, tfc: Number, name: str = "flange") -> tuple[FlangeElement]:
-    """The single outstand bfc/2 of a plate flange (lambda_f = bfc / (2 tfc))."""
-    return (FlangeElement(f"{name} outstand", length(bfc, "bfc") / 2.0, length(tfc, "tfc")),)
 
 
 def yield_onset(

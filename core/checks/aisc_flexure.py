@@ -39,8 +39,8 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 from core.checks._inputs import Number, internal, length, modulus, stress
-from core.checks.aashto_flange import FlangeElement
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
+from core.checks.riveted_flange import FlangeElement
 from core.checks.sources import AISC_360, factor
 from core.errors import InputError
 
