@@ -29,7 +29,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from core.checks._inputs import Number, internal
-from core.checks.fatigue import FatigueResult
+from core.checks.fatigue import FatigueResult, fatigue_result
 from core.checks.results import ENGINEER, CheckValue
 from core.checks.sources import AASHTO_LRFD, AASHTO_MBE, member_length
 from core.units import to_internal
@@ -175,17 +175,6 @@ def remaining_life(
 
 
 def _result(category, vals, notes, infinite, total, rem) -> FatigueResult:
-    return FatigueResult(
-        limit_state="fatigue (riveted detail)",
-        standard=AASHTO_MBE.name,
-        edition=AASHTO_MBE.edition,
-        clause=f"Section 7, 7.2.4 and 7.2.5.1, with LRFD 6.6.1.2.5, Category {category.name} (from memory)",
-        Rn=category.threshold / MAX_TO_EFFECTIVE,
-        phi=1.0,
-        kind="stress",
-        values=tuple(vals),
-        notes=tuple(notes),
-        infinite_life=infinite,
-        total_life=total,
-        remaining_life=rem,
-    )
+    clause = f"Section 7, 7.2.4 and 7.2.5.1, with LRFD 6.6.1.2.5, Category {category.name}"
+    Rn = category.threshold / MAX_TO_EFFECTIVE
+    return fatigue_result(AASHTO_MBE, clause, Rn, vals, notes, infinite, total, rem)

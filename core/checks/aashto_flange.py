@@ -44,6 +44,7 @@ __all__ = [
     "K_INTERNAL",
     "PHI_F",
     "FlangeElement",
+    "flange_inputs",
     "flange_local_buckling",
     "plate_flange",
     "web_bend_buckling",
@@ -70,7 +71,22 @@ def yield_onset(
     return max(min(cands), 0.5 * Fyc)
 
 
-def _common_inputs(Fyc, Fyw, E, Rb, Rh, Fyt, Sxc, Sxt, where):
+def flange_inputs(
+    Fyc: Number,
+    Fyw: Number,
+    E: Number,
+    Rb: float,
+    Rh: float,
+    Fyt: Number | None,
+    Sxc: Number,
+    Sxt: Number | None,
+    where: str,
+) -> tuple[float, float, float, float, float, float, float]:
+    """Checked ``(Fyc, Fyw, E, Rb, Rh, Sxc, Fyr)`` of a compression flange check.
+
+    Raises:
+        InputError: a value out of range.
+    """
     Fyc = stress(Fyc, "Fyc", where=where)
     Fyw = stress(Fyw, "Fyw", where=where)
     E = modulus(E, where=where)
@@ -114,7 +130,7 @@ def flange_local_buckling(
     Raises:
         InputError: values out of range, or no outstanding element.
     """
-    Fyc, Fyw, E, Rb, Rh, Sxc, Fyr = _common_inputs(Fyc, Fyw, E, Rb, Rh, Fyt, Sxc, Sxt, where)
+    Fyc, Fyw, E, Rb, Rh, Sxc, Fyr = flange_inputs(Fyc, Fyw, E, Rb, Rh, Fyt, Sxc, Sxt, where)
     ph = factor(phi_f, "phi_f", high=1.0, where=where)
     outs = [e for e in elements if e.kind == "outstand"]
     if not outs:

@@ -30,8 +30,8 @@ from __future__ import annotations
 import math
 from collections.abc import Sequence
 
-from core.checks._inputs import Number, internal, length, modulus, stress
-from core.checks.aashto_flange import PHI_F, yield_onset
+from core.checks._inputs import Number, internal, length, modulus
+from core.checks.aashto_flange import PHI_F, flange_inputs
 from core.checks.elastic_support import critical_load
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
 from core.checks.sources import AASHTO_LRFD, factor, member_length
@@ -123,21 +123,11 @@ def lateral_torsional_buckling(
     Raises:
         InputError: values out of range (Cb outside 1.0 to 2.3).
     """
-    Fyc = stress(Fyc, "Fyc", where=where)
-    Fyw = stress(Fyw, "Fyw", where=where)
-    E = modulus(E, where=where)
+    Fyc, Fyw, E, Rb, Rh, Sxc, Fyr = flange_inputs(Fyc, Fyw, E, Rb, Rh, Fyt, Sxc, Sxt, where)
     rt = length(rt, "rt", where=where)
     Lb = internal(Lb, "length", "Lb", where=where, low=0.0, high=1e6, low_inclusive=True)
-    Sxc = internal(Sxc, "section_modulus", "Sxc", where=where, low=0.0, high=1e12)
     Cb = internal(Cb, "dimensionless", "Cb", where=where, low=1.0, high=CB_MAX, low_inclusive=True)
-    Rb = internal(Rb, "dimensionless", "Rb", where=where, low=0.0, high=1.0)
-    Rh = internal(Rh, "dimensionless", "Rh", where=where, low=0.0, high=1.0)
     ph = factor(phi_f, "phi_f", high=1.0, where=where)
-    Fyt_ = None if Fyt is None else stress(Fyt, "Fyt", where=where)
-    ratio = None
-    if Sxt is not None:
-        ratio = internal(Sxt, "section_modulus", "Sxt", where=where, low=0.0, high=1e12) / Sxc
-    Fyr = yield_onset(Fyc, Fyw, Rh, Fyt_, ratio)
     Lp = rt * math.sqrt(E / Fyc)
     Lr = math.pi * rt * math.sqrt(E / Fyr)
     if Lr <= Lp:

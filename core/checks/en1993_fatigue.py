@@ -30,7 +30,7 @@ import math
 from collections.abc import Sequence
 
 from core.checks._inputs import Number, internal
-from core.checks.fatigue import FatigueResult
+from core.checks.fatigue import FatigueResult, fatigue_result
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
 from core.checks.sources import EN_1993_1_9, EN_1993_2, factor
 from core.errors import InputError
@@ -252,18 +252,6 @@ def remaining_life(
 
 
 def _result(dsc, gMf, vals, notes, infinite, total, rem) -> FatigueResult:
-    d, _ = limits(dsc)
-    return FatigueResult(
-        limit_state="fatigue (riveted detail)",
-        standard=EN_1993_1_9.name,
-        edition=EN_1993_1_9.edition,
-        clause="7.1 and Annex A, detail category 71 (from memory)",
-        Rn=d / gMf,
-        phi=1.0,
-        kind="stress",
-        values=tuple(vals),
-        notes=tuple(notes),
-        infinite_life=infinite,
-        total_life=total,
-        remaining_life=rem,
-    )
+    clause = f"7.1 and Annex A, detail category {dsc:g}"
+    Rn = limits(dsc)[0] / gMf
+    return fatigue_result(EN_1993_1_9, clause, Rn, vals, notes, infinite, total, rem)

@@ -7,9 +7,14 @@ cites only its own family.
 from __future__ import annotations
 
 import math
+from collections.abc import Iterable
 from dataclasses import dataclass
+from typing import TYPE_CHECKING
 
-from core.checks.results import CapacityResult
+if TYPE_CHECKING:
+    from core.checks.sources import Document
+
+from core.checks.results import CapacityResult, CheckValue
 from core.errors import InputError
 
 
@@ -39,3 +44,30 @@ class FatigueResult(CapacityResult):
                 raise InputError(f"{self.limit_state}: {name} = {v!r} must be finite or None")
         if self.infinite_life and (self.total_life is not None or self.remaining_life is not None):
             raise InputError(f"{self.limit_state}: an infinite life has no total or remaining life")
+
+
+def fatigue_result(
+    doc: Document,
+    clause: str,
+    Rn: float,
+    values: Iterable[CheckValue],
+    notes: Iterable[str],
+    infinite: bool,
+    total: float | None,
+    remaining: float | None,
+) -> FatigueResult:
+    """A :class:`FatigueResult` of a riveted detail citing ``doc`` (clause from memory)."""
+    return FatigueResult(
+        limit_state="fatigue (riveted detail)",
+        standard=doc.name,
+        edition=doc.edition,
+        clause=f"{clause} (from memory)",
+        Rn=Rn,
+        phi=1.0,
+        kind="stress",
+        values=tuple(values),
+        notes=tuple(notes),
+        infinite_life=infinite,
+        total_life=total,
+        remaining_life=remaining,
+    )
