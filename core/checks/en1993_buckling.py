@@ -16,7 +16,7 @@ from __future__ import annotations
 
 import math
 
-from core.checks.sources import EN_1993_1_1, EN_1993_2, choice
+from core.checks.sources import EN_1993_2, choice
 from core.errors import InputError
 
 #: imperfection factors, EN 1993-1-1 Table 6.1 (and Table 6.3 for LTB; from memory)
@@ -56,7 +56,3 @@ def chi(lam: float, alpha: float, lam0: float = 0.2) -> tuple[float, float]:
     phi = 0.5 * (1.0 + alpha * (lam - lam0) + lam * lam)
     value = 1.0 / (phi + math.sqrt(max(phi * phi - lam * lam, 0.0)))
     return min(value, 1.0), phi
-
-
-def chi_source(which: str = "6.3.1.2, Eq. 6.49") -> str:
-    return EN_1993_1_1.ref(which)

@@ -37,12 +37,6 @@ import numpy as np
 from core.checks.sources import choice
 from core.errors import GeometryError
 
-ROARK = "Roark's Formulas for Stress and Strain, 7th ed., Table 10.1 case 4 (from memory)"
-THIN_WALLED = (
-    "thin-walled theory of the I-section (Timoshenko and Gere 1961, Art. 5.10; from memory)"
-)
-KT_SIGN = "sign of Kitipornchai and Trahair (1980), AISC 360 Commentary F4 (from memory)"
-
 
 def _rects(rects: np.ndarray) -> np.ndarray:
     r = np.asarray(rects, dtype=float).reshape(-1, 4)
