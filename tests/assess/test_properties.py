@@ -113,10 +113,10 @@ def test_loose_rivets_counted_when_the_engineer_says_so() -> None:
     )
 
 
-def test_perforated_web_estimate_never_exceeds_as_built() -> None:
-    # A hole through a thinned band: the estimate keeps the buckling of the full panel and
-    # credits only the remaining depth, so it cannot exceed as-built (a property that must
-    # hold; a shorter D alone would lower the slenderness and raise the elastic resistance).
+def test_perforated_web_local_check_never_exceeds_as_built() -> None:
+    # A hole through a thinned band: the local check is the plastic shear of the net web
+    # (VQ/It is not applicable across a cut-through web); it cannot exceed as-built, and the
+    # panel keeps its buckling check with the panel-representative thickness.
     d = copy.deepcopy(BASE)
     m = d["members"][0]
     m["section"]["girder"]["tw"] = 12
@@ -125,16 +125,21 @@ def test_perforated_web_estimate_never_exceeds_as_built() -> None:
         s["perforations"] = [{"id": "p", "part": "web", "lo": 300, "hi": 340}]
     for st_ in assess(survey(d)).members[0].stations:
         assert not st_.found.shear_applicable
-        ls = st_.limit_state("web_shear")
-        assert ls.ratio < 1.0
-        assert "remaining depth share" in ls.note and "governs the cut-through panel" in ls.note
+        local = st_.limit_state("web_local")
+        assert local.ratio < 1.0
+        assert "plastic shear of the net vertical section" in local.note
+        assert not local.found.has("V_el") and local.built.has("V_el")
+        assert st_.limit_state("web_shear").ratio == pytest.approx(1.0)  # no whole-web loss
 
 
 def test_assumptions_name_the_web_methods_with_their_sources() -> None:
-    # Every method of asfound's own is listed with "no source" for the engineer to judge.
+    # Every method is listed with its basis for the engineer to judge.
     a = assess(survey(sample_doc()))
     items = {x.item: x for x in a.assumptions}
-    assert "mean web reading" in items["as-found web thickness for panel shear"].value
-    assert items["loss bands on the web"].source.startswith("asfound method, no source")
-    assert "no source" in items["web cut through (perforation or band worn through)"].source
-    assert "from memory" in items["rating factors"].source
+    assert (
+        "panel-representative web thickness" in items["web shear, panel (buckling and yield)"].value
+    )
+    local = items["web shear, local (bands, perforations, thinning)"]
+    assert "thinnest cut" in local.value and "net vertical section" in local.value
+    assert "from memory" in items["factor gamma_M1"].source
+    assert items["standard family"].value.startswith("EN 1993")

@@ -73,7 +73,7 @@ def test_ratios_and_rating_factors_of_every_limit_state(si):
                 row = (
                     f"{ls.name} {value(ls.C_built, ls.kind, 'si')} "
                     f"{value(ls.C_found, ls.kind, 'si')} {ratio(ls.ratio)} "
-                    f"{value(ls.demand, ls.kind, 'si')} {rf(ls.RF)}"
+                    f"{value(ls.demand, ls.kind, 'si')} {rf(ls.measure)}"
                 )
                 assert row in text, (s.station, row)
 
