@@ -3,7 +3,9 @@
 - :class:`RatingFactor` (AASHTO MBE 6A.4.2, LRFR):
   RF = (C - gDC DC - gDW DW) / (gLL (LL + IM)), C = phi_c phi_s phi Rn with
   phi_c phi_s >= 0.85 (6A.4.2.1); the system factor phi_s applies to flexural and axial
-  effects only (6A.4.2.4), shear and connections take 1.0. From memory.
+  effects only (6A.4.2.4), shear and connections take 1.0. From memory. Where the factored
+  dead load alone exceeds C the rating factor is reported as 0 with a note (a negative value
+  would rise towards 0 as the live load grows, which reads as a better rating).
 - :class:`DemandCapacity` (AISC 360-22 B3.1 with the load combination of the document AISC
   points to, ASCE/SEI 7-22 2.3.1 combination 2, 1.2 D + 1.6 L; from memory):
   D/C = (1.2 D + 1.6 L) / (phi Rn).
@@ -102,7 +104,8 @@ class RatingFactor:
         raw = phi_c.value * s
         cs = max(raw, PHI_CS_FLOOR)
         C = cs * capacity
-        RF = (C - self.gDC.value * DC - self.gDW.value * DW) / (self.gLL.value * LL)
+        left = C - self.gDC.value * DC - self.gDW.value * DW
+        RF = max(left, 0.0) / (self.gLL.value * LL)
         demand = self.gDC.value * DC + self.gDW.value * DW + self.gLL.value * LL
         vals = (
             CheckValue("phi_c", phi_c.value, "dimensionless", phi_c.description, phi_c.source),
@@ -131,6 +134,11 @@ class RatingFactor:
         notes = []
         if raw < PHI_CS_FLOOR:
             notes.append(f"phi_c phi_s = {raw:.3g} raised to the {PHI_CS_FLOOR} floor (6A.4.2.1)")
+        if left < 0.0:
+            notes.append(
+                f"C - gDC DC - gDW DW = {left:.4g} < 0: the factored dead load alone exceeds the "
+                "capacity; RF taken as 0 (no live load capacity), not negative"
+            )
         return Rating(self.name, self.symbol, RF, True, demand, C, load, kind, vals, tuple(notes))
 
     def design(self, DC: float, DW: float, LL: float) -> float:

@@ -1,6 +1,8 @@
 """Properties the assessment must have (facts of mechanics, common practice, no source):
 zero loss gives ratio 1; loss never raises a capacity of a symmetric girder whose loss lies
-in the web and the bottom flange; more missing rivets never raise a rivet line's capacity."""
+in the web and the bottom flange, in every family; switching the family changes the clause
+named on every limit state; a heavier live load never raises a rating; more missing rivets
+never raise a rivet line's capacity."""
 
 from __future__ import annotations
 
@@ -14,10 +16,13 @@ from hypothesis import strategies as st
 from core.assess import AssessOptions, assess
 from tests.assess.helpers import sample_doc, survey, without_loss
 
+FAMILIES = ("aashto", "aisc", "en1993")
 
+
+@pytest.mark.parametrize("family", FAMILIES)
 @pytest.mark.parametrize("name", ["deck-girder-si.json", "through-girder-us.json"])
-def test_zero_loss_gives_ratio_one(name) -> None:
-    a = assess(survey(without_loss(sample_doc(name))))
+def test_zero_loss_gives_ratio_one(name, family) -> None:
+    a = assess(survey(without_loss(sample_doc(name))), AssessOptions(standard=family))
     for m in a.members:
         for s in m.stations:
             assert s.found.shear_applicable
@@ -43,8 +48,9 @@ BASE = _symmetric_doc()
     angle=st.floats(0.45, 1.0),
     cover=st.floats(0.45, 1.0),
     band=st.floats(0.05, 1.0),
+    family=st.sampled_from(FAMILIES),
 )
-def test_loss_never_raises_capacity(web, angle, cover, band) -> None:
+def test_loss_never_raises_capacity(web, angle, cover, band, family) -> None:
     d = copy.deepcopy(BASE)
     m = d["members"][0]
     g = m["section"]["girder"]
@@ -64,11 +70,69 @@ def test_loss_never_raises_capacity(web, angle, cover, band) -> None:
         s["bands"] = [
             {"id": "b", "part": "web", "lo": lo, "hi": lo + 60, "t": g["tw"] * web * band}
         ]
-    a = assess(survey(d))
+    a = assess(survey(d), AssessOptions(standard=family))
     for st_ in a.members[0].stations:
         for ls in st_.limit_states:
             if ls.ratio is not None:
                 assert ls.ratio <= 1.0 + 1e-9, (st_.station, ls.key, ls.ratio)
+
+
+@pytest.mark.parametrize("name", ["deck-girder-si.json", "through-girder-us.json"])
+def test_switching_the_family_changes_the_clause_of_every_limit_state(name) -> None:
+    runs = {f: assess(survey(sample_doc(name)), AssessOptions(standard=f)) for f in FAMILIES}
+    refs = {
+        f: {
+            (s.station, ls.key): ls.reference
+            for s in a.members[0].stations
+            for ls in s.limit_states
+        }
+        for f, a in runs.items()
+    }
+    own = {"aashto": "AASHTO", "aisc": "AISC 360-22", "en1993": "EN 1993"}
+    for f, r in refs.items():
+        for key, ref in r.items():
+            assert own[f] in ref, (f, key, ref)
+            for g in FAMILIES:
+                if g != f:
+                    assert own[g] not in ref, (f, key, ref)
+                    if key in refs[g]:
+                        assert refs[g][key] != ref, (f, g, key)
+
+
+@settings(max_examples=6, deadline=None)
+@given(st.floats(1.0, 1.6), st.sampled_from(["legal", "inventory"]))
+def test_a_heavier_live_load_never_raises_a_rating(k, level) -> None:
+    # AASHTO: the legal truck's axles (and, with HL-93 for inventory, the distribution
+    # factor) times k >= 1; every rating factor at every station can only fall
+    d = sample_doc("through-girder-us.json")
+    heavy = copy.deepcopy(d)
+    for v in heavy["members"][0]["live_load"]["vehicles"]:
+        for a in v["axles"]:
+            a["load"]["value"] *= k
+    opts = AssessOptions(level=level)
+    g = assess(survey(d), opts).members[0].factors
+    g0 = next(f.value for f in g if f.symbol == "g")
+    base = assess(survey(d), AssessOptions(level=level, distribution=g0))
+    more = assess(survey(heavy), AssessOptions(level=level, distribution=g0 * k))
+    for s0, s1 in zip(base.members[0].stations, more.members[0].stations, strict=True):
+        for a, b in zip(s0.limit_states, s1.limit_states, strict=True):
+            if a.RF is not None:
+                assert b.RF <= a.RF + 1e-9, (s0.station, a.key)
+
+
+@settings(max_examples=5, deadline=None)
+@given(st.floats(0.75, 1.46))
+def test_a_heavier_lm71_never_lowers_a_utilisation(alpha) -> None:
+    # EN: alpha of LM71 up from 0.75 raises every utilisation (or keeps it)
+    d = sample_doc()
+    lo, hi = copy.deepcopy(d), copy.deepcopy(d)
+    lo["members"][0]["live_load"]["alpha"] = 0.75
+    hi["members"][0]["live_load"]["alpha"] = alpha
+    a, b = assess(survey(lo)), assess(survey(hi))
+    for s0, s1 in zip(a.members[0].stations, b.members[0].stations, strict=True):
+        for x, y in zip(s0.limit_states, s1.limit_states, strict=True):
+            if x.measure is not None:
+                assert y.measure >= x.measure - 1e-9, (s0.station, x.key)
 
 
 @settings(max_examples=15, deadline=None)

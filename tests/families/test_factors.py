@@ -122,6 +122,23 @@ def test_rating_factor_system_factor_on_flexure_only():
     assert r.value == pytest.approx(1.0) and any("floor" in n for n in r.notes)
 
 
+def test_capacity_below_the_dead_load_gives_zero_not_a_negative_rf():
+    # C = 0.95 * 100 = 95 < 1.25 * 200: RF = 0 with the reason (a negative RF would rise with
+    # a heavier live load)
+    m = RatingFactor("inventory", _F("gDC", 1.25), _F("gDW", 1.5), _F("gLL", 1.75))
+    r = m.rate(
+        capacity=100.0,
+        kind="force",
+        flexural=False,
+        DC=200.0,
+        DW=0.0,
+        LL=50.0,
+        load="x",
+        member=MEMBER,
+    )
+    assert r.value == 0.0 and any("dead load alone exceeds" in n for n in r.notes)
+
+
 def test_demand_capacity_and_utilisation():
     dc = DemandCapacity(_F("LF_D", 1.2), _F("LF_L", 1.6))
     # (1.2 * (200 + 50) + 1.6 * 300) / 1000 = 0.78
