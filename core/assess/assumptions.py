@@ -10,6 +10,14 @@ from core.assess.results import Assumption, MemberResult
 from core.checks.results import ENGINEER, PRACTICE
 from core.families.base import Choice, Family
 from core.survey.model import Survey
+from core.units import show
+
+
+def _len(mm: float, system: str) -> str:
+    """A length in the survey's display unit (and mm where that is not mm)."""
+    v = show(mm, "length", system)
+    return f"{v.value:.4g} {v.symbol}" + ("" if v.unit == "mm" else f" ({mm:.4g} mm)")
+
 
 NOT_YET = (
     "the limit states of the girder ends (bearing stiffeners, web crippling), lateral-torsional "
@@ -66,15 +74,16 @@ def assumptions(
         if m.stations:
             web = web_geometry(m.stations[0].built.definition)
             D, _, words = web.depth(family.depth_basis)
+            system = survey.survey.unit_system
             others = [
-                f"{DEPTH_WORDS[b]} {web.depth(b)[0]:.4g} mm"
+                f"{DEPTH_WORDS[b]} {_len(web.depth(b)[0], system)}"
                 for b in ("clear", "rivet_lines", "web")
                 if b != family.depth_basis and (b != "rivet_lines" or web.y_lines)
             ]
             out.append(
                 Assumption(
                     f"member {m.member}: web depth for shear",
-                    f"{D:.4g} mm ({words}); selectable: " + "; ".join(others),
+                    f"{_len(D, system)} ({words}); selectable: " + "; ".join(others),
                     ENGINEER
                     + f" (depth basis '{family.depth_basis}'"
                     + (

@@ -24,6 +24,7 @@ from core.assess.station import (
     rate,
     rated,
     station_flags,
+    web_readings,
 )
 from core.checks.flags import Flag, Level, flag_rivet_line
 from core.errors import InputError
@@ -61,6 +62,8 @@ def assess_member(
     stations = []
     envelopes = []
     all_effects = {}
+    readings = web_readings(member, web.web_id)
+    cache: dict = {}
     for st in member.stations:
         place = member.place(st.id)
         x = st.position_mm(member)
@@ -77,7 +80,7 @@ def assess_member(
         keys = ["station"] if effects is not None and "station" in effects.live else []
         keys = keys or rules.design_keys(cases, opts)
         tw, tw_words = panel_thickness(
-            member, st, web.web_id, defn.part(web.web_id).t, do, span, opts.thickness_policy
+            st.id, readings, defn.part(web.web_id).t, do, span, opts.thickness_policy
         )
         ctx = StationContext(
             family=family,
@@ -103,6 +106,7 @@ def assess_member(
             lines=lines,
             opts=opts,
             year_built=survey.survey.year_built,
+            cache=cache,
         )
         states = [
             rated(ls, rate(ls, family.measure, effects, keys, by_key, mf, place))
@@ -196,8 +200,8 @@ def member_summary(
         if worst is None:
             continue
         r, sid, name = worst
-        gLL = getattr(measure, "gLL", None)
-        factor = f"gLL {gLL.value:g}" if gLL is not None else ""
+        lf = measure.live_factor
+        factor = f"{lf.symbol} {lf.value:g}"
         conseq = rules.posting(r.value, weight, system) if weight else ""
         rows.append(SummaryRow(words, r.load, factor, r.symbol, r.value, sid, name, conseq))
     return tuple(rows)

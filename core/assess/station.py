@@ -13,7 +13,7 @@ from core.checks.flags import Flag, flag_capacity_ratio, flag_not_applicable, fl
 from core.families.base import Factor, Family
 from core.families.context import StationContext
 from core.section import StationSection
-from core.survey.model import Member, Station
+from core.survey.model import Member
 
 KIND_OF = {"M": "moment", "V": "force"}
 
@@ -31,10 +31,19 @@ def _panel_index(x: float, span: float, do: float) -> int:
     return min(int(x // do), n - 1) if x < span else n - 1
 
 
+def web_readings(member: Member, web_id: str) -> dict[str, tuple[float, list[float]]]:
+    """Per station: its position (mm) and its whole-web readings (mm)."""
+    out = {}
+    for st in member.stations:
+        w = member.place(st.id)
+        vals = [r.mm(w) for r in st.readings if r.part == web_id and r.region is None]
+        out[st.id] = (st.position_mm(member), vals)
+    return out
+
+
 def panel_thickness(
-    member: Member,
-    station: Station,
-    web_id: str,
+    station_id: str,
+    readings: dict[str, tuple[float, list[float]]],
     t_nominal: float,
     do: float | None,
     span: float,
@@ -43,22 +52,17 @@ def panel_thickness(
     """The panel-representative web thickness as-found (mm) and why: the mean (or, with the
     minimum thickness policy, the least) of the whole-web readings of every station in the
     same panel between stiffeners; for an unstiffened web, of this station only. Readings of
-    loss bands are local and left to the local check. Capped at nominal."""
-
-    def readings(st: Station) -> list[float]:
-        w = member.place(st.id)
-        return [r.mm(w) for r in st.readings if r.part == web_id and r.region is None]
-
-    x = station.position_mm(member)
+    loss bands are local and left to the local check. Capped at nominal. ``readings`` is
+    :func:`web_readings` of the member."""
+    x, own = readings[station_id]
     if do is None:
-        vals, where = readings(station), "this station (unstiffened web)"
+        vals, where = own, "this station (unstiffened web)"
     else:
         k = _panel_index(x, span, do)
-        same = [s for s in member.stations if _panel_index(s.position_mm(member), span, do) == k]
-        vals = [v for s in same for v in readings(s)]
+        same = [sid for sid, (xs, _) in readings.items() if _panel_index(xs, span, do) == k]
+        vals = [v for sid in same for v in readings[sid][1]]
         a, b = k * do / 1000.0, min((k + 1) * do, span) / 1000.0
-        ids = ", ".join(s.id for s in same)
-        where = f"the panel {a:.4g} to {b:.4g} m (station(s) {ids})"
+        where = f"the panel {a:.4g} to {b:.4g} m (station(s) {', '.join(same)})"
     if not vals:
         return t_nominal, "nominal: no web reading in " + where
     stat = min(vals) if policy == "minimum" else statistics.fmean(vals)

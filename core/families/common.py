@@ -127,7 +127,10 @@ def rivet_groups(ctx: StationContext, check: RivetCheck) -> list[LimitState]:
         no_path = []
         for line in group:
             w = f"{ctx.where} / rivet line {line.id!r}"
-            rb = check(ctx, line, plies(ctx.defn, line, None, Fu), w)
+            key = ("rivet as-built", line.id)
+            if key not in ctx.cache:
+                ctx.cache[key] = check(ctx, line, plies(ctx.defn, line, None, Fu), w)
+            rb = ctx.cache[key]
             rf = check(ctx, line, plies(ctx.defn, line, ctx.loss_local, Fu), w)
             share = line.n_lines / k
             C_b += share * rb.Rr / line.pitch

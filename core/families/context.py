@@ -44,6 +44,8 @@ class StationContext:
             station's level, ``{"M": ..., "V": ...}`` (empty without loads).
         lines: rivet line summaries along the member. opts: the engineer's choices.
         year_built: of the structure, or None.
+        cache: results that are the same at every station of the member (the as-built rivet
+            of each line), shared by the member's stations.
     """
 
     family: Family
@@ -69,6 +71,7 @@ class StationContext:
     lines: Mapping[str, LineSummary] = field(default_factory=dict)
     opts: AssessOptions = field(default_factory=AssessOptions)
     year_built: int | None = None
+    cache: dict = field(default_factory=dict, compare=False, repr=False)
 
     def f(self, symbol: str) -> float:
         """A factor of the family."""

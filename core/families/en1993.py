@@ -26,7 +26,7 @@ from core.assess.options import AssessOptions
 from core.assess.results import LimitState
 from core.checks import en1993_rivets, en1993_shear
 from core.checks.en1993_bending import epsilon, tension_flange_holes
-from core.checks.en1993_interaction import bending_shear, flange_contribution
+from core.checks.en1993_interaction import SRC_71, bending_shear, flange_contribution
 from core.checks.flags import Flag, Level
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
 from core.families.base import Choice, Document, Factor, Family, LimitStateSpec, override
@@ -194,8 +194,17 @@ def shear_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
             E=ctx.material.E,
             where=f"{ctx.where} / web shear ({label})",
         )
-        if note:
+        if note and Vbf == 0.0:
             r = replace(r, notes=(*r.notes, note))
+        if Vbf > 0.0:
+            r = replace(
+                r,
+                notes=(
+                    *r.notes,
+                    "Vbf,Rd with the flange's plates as separate plates (tf = sqrt(sum b t² / bf)),"
+                    " no composite action: conservative",
+                ),
+            )
         elif ctx.do is None:
             r = replace(r, notes=(*r.notes, "no transverse stiffeners: Vbf,Rd not counted"))
         elif M_Ed is None:
@@ -287,53 +296,61 @@ def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitSt
 
 
 def interaction_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
-    """Bending and shear, EN 1993-1-5 7.1, where the station has design effects."""
+    """Bending and shear, EN 1993-1-5 7.1, where the station has design effects: the moment
+    resistance for the design shear, and never more than the bending resistance Mc,Rd."""
     V_Ed = ctx.design.get("V")
     if V_Ed is None or "M" not in ctx.design:
         return []
     shear = next((ls for ls in done if ls.key == "web_shear"), None) or shear_states(ctx)[0]
+    bend = next((ls for ls in done if ls.key == "bending"), None) or bending_states(ctx)[0]
     out = {}
-    for label, st, res in (("built", ctx.built, shear.built), ("found", ctx.found, shear.found)):
-        if not isinstance(res, CapacityResult) or not res.has("Vbw,Rd"):
+    for label, st, res, Mc in (
+        ("built", ctx.built, shear.built, bend.C_built),
+        ("found", ctx.found, shear.found, bend.C_found),
+    ):
+        if not isinstance(res, CapacityResult) or not res.has("Vbw,Rd") or Mc is None:
             return []
         Mf, _ = flanges_moment(ctx, st)
         Mpl = st.gross.props.Zx * ctx.material.Fy / ctx.f("gamma_M0")
         it = bending_shear(
             V_Ed=V_Ed, Vbw_Rd=res.value("Vbw,Rd").value, Mpl_Rd=Mpl, Mf_Rd=min(Mf, Mpl)
         )
+        M = min(it.M_Rd, Mc)
         out[label] = CapacityResult(
             limit_state="bending and shear",
             standard="EN 1993-1-5 Design of steel structures: plated structural elements",
             edition="2006",
             clause="7.1, Eq. 7.1" + MEM,
-            Rn=it.M_Rd,
+            Rn=M,
             phi=1.0,
             kind="moment",
             values=(
                 *it.values,
+                CheckValue("M_Rd,7.1", it.M_Rd, "moment", "moment resistance for V_Ed", SRC_71),
+                CheckValue("Mc,Rd", Mc, "moment", "bending resistance", "EN 1993-1-1 6.2.5"),
                 CheckValue("V_Ed", V_Ed, "force", "design shear at the station", "load model"),
             ),
-            notes=(it.branch,),
+            notes=(it.branch, "M_Rd = min(Eq. 7.1 for V_Ed, Mc,Rd)"),
         )
     b, f = out["built"], out["found"]
-    note = f"M_Rd for V_Ed: {f.notes[0]}; Mpl,Rd of the gross section, Mf,Rd of the flanges alone"
-    return [
-        capped(
-            LimitState(
-                "interaction",
-                "bending and shear",
-                "moment",
-                b,
-                f,
-                b.Rn,
-                f.Rn,
-                note=note,
-                effect="M",
-                flexural=True,
-                R_effect=f.Rn,
-            )
-        )
-    ]
+    note = (
+        f"min(Eq. 7.1 for V_Ed, Mc,Rd): {f.notes[0]}; Mpl,Rd of the gross section, Mf,Rd of "
+        "the flanges alone"
+    )
+    ls = LimitState(
+        "interaction",
+        "bending and shear",
+        "moment",
+        b,
+        f,
+        b.Rn,
+        f.Rn,
+        note=note,
+        effect="M",
+        flexural=True,
+        R_effect=f.Rn,
+    )
+    return [capped(ls)]
 
 
 def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:

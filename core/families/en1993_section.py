@@ -223,19 +223,20 @@ def effective_modulus(
 def flange_plate(
     ctx: StationContext, st: StationSection, ids: tuple[str, ...]
 ) -> tuple[float, float]:
-    """(bf, tf) of a built-up flange as one plate: the widest horizontal plate or leg and the
-    total thickness of the horizontal plates and angle legs over the web (asfound's reading of
-    5.4 for a riveted flange; engineer to review)."""
-    bf, tf = 0.0, 0.0
+    """(bf, tf) of a built-up flange for 5.4: bf the widest horizontal plate or pair of angle
+    legs, tf = sqrt(sum b_i t_i² / bf) over the horizontal plates and angle legs, i.e. the
+    plates resisting as separate plates without composite action (asfound's conservative
+    reading for a riveted flange; engineer to review)."""
+    bf, btt = 0.0, 0.0
     for pid in ids:
         p = ctx.defn.part(pid)
         if isinstance(p, Plate) and p.orientation == "horizontal":
-            bf = max(bf, p.b)
-            tf += part_thickness(st.loss, ctx.defn, pid)
-        elif isinstance(p, Angle) and p.dir_x > 0:
-            bf = max(bf, 2.0 * p.b_h + ctx.tw_nominal)
-            tf += part_thickness(st.loss, ctx.defn, pid, "h")
-    return bf, tf
+            t = part_thickness(st.loss, ctx.defn, pid)
+            bf, btt = max(bf, p.b), btt + p.b * t**2
+        elif isinstance(p, Angle):
+            t = part_thickness(st.loss, ctx.defn, pid, "h")
+            bf, btt = max(bf, 2.0 * p.b_h + ctx.tw_nominal), btt + p.b_h * t**2
+    return (bf, (btt / bf) ** 0.5) if bf > 0 else (0.0, 0.0)
 
 
 def flanges_moment(ctx: StationContext, st: StationSection) -> tuple[float, float]:

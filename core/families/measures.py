@@ -141,6 +141,10 @@ class RatingFactor:
             )
         return Rating(self.name, self.symbol, RF, True, demand, C, load, kind, vals, tuple(notes))
 
+    @property
+    def live_factor(self) -> Factor:
+        return self.gLL
+
     def design(self, DC: float, DW: float, LL: float) -> float:
         """Factored load effect gDC DC + gDW DW + gLL (LL + IM)."""
         return self.gDC.value * DC + self.gDW.value * DW + self.gLL.value * LL
@@ -188,6 +192,10 @@ class DemandCapacity:
         return Rating(
             self.name, self.symbol, min(value, 1e9), False, demand, capacity, load, kind, vals
         )
+
+    @property
+    def live_factor(self) -> Factor:
+        return self.gL
 
     def design(self, DC: float, DW: float, LL: float) -> float:
         return self.gD.value * (DC + DW) + self.gL.value * LL
@@ -250,6 +258,10 @@ class Utilisation:
         return Rating(
             self.name, self.symbol, min(value, 1e9), False, E_d, capacity, load, kind, vals, notes
         )
+
+    @property
+    def live_factor(self) -> Factor:
+        return self.gamma_Q
 
     def design(self, DC: float, DW: float, LL: float) -> float:
         return self.gamma_G.value * (DC + DW) + self.gamma_Q.value * LL

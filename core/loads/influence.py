@@ -22,6 +22,8 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Literal
 
+import numpy as np
+
 from core.errors import InputError
 
 Effect = Literal["M", "V+", "V-"]
@@ -146,18 +148,87 @@ class Train:
 
 
 def _value(
-    effect: Effect, L: float, x: float, t: Train, first: float, heading: int, side: int
+    effect: Effect,
+    L: float,
+    x: float,
+    t: Train,
+    first: float,
+    heading: int,
+    side: int,
+    fav: tuple[float, float, float] = (0.0, 0.0, 0.0),
 ) -> float:
+    """The effect of ``t`` standing at ``first``; ``fav`` = (lo, hi, integral) of the
+    favourable stretch (only used with a uniform load beside the gap)."""
     v = 0.0
     for p, o in zip(t.P, t.offsets, strict=True):
         v += p * ordinate(effect, L, x, first + heading * o, side)
     if t.q_around > 0.0:
-        lo, hi = favourable_region(effect, L, x)
-        ends = sorted((first - heading * t.gap_before, first + heading * (t.length + t.gap_after)))
-        v += t.q_around * (
-            _integral(effect, L, x, lo, hi)
-            - _integral(effect, L, x, max(lo, ends[0]), min(hi, ends[1]))
+        lo, hi, whole = fav
+        a = first - heading * t.gap_before
+        b = first + heading * (t.length + t.gap_after)
+        if a > b:
+            a, b = b, a
+        v += t.q_around * (whole - _integral(effect, L, x, max(lo, a), min(hi, b)))
+    return v
+
+
+def _symmetric(t: Train) -> bool:
+    """True when the train reads the same from either end (LM71): one heading suffices."""
+    n = len(t.P)
+    return t.gap_before == t.gap_after and all(
+        t.P[i] == t.P[n - 1 - i] and abs(t.offsets[i] + t.offsets[n - 1 - i] - t.length) < 1e-9
+        for i in range(n)
+    )
+
+
+def _antiderivative(effect: Effect, L: float, x: float, u: np.ndarray) -> np.ndarray:
+    """F(u) = integral from 0 to u of the ordinate (u clipped to [0, L]; the shear's part
+    right of the station, its favourable stretch for V+, taken just right of x)."""
+    u = np.clip(u, 0.0, L)
+    if effect == "M":
+        left = (L - x) / L * u * u / 2.0
+        Fx = (L - x) / L * x * x / 2.0
+        right = Fx + x / L * ((L * u - u * u / 2.0) - (L * x - x * x / 2.0))
+        return np.where(u <= x, left, right)
+    left = -u * u / (2.0 * L)
+    Fx = -x * x / (2.0 * L)
+    right = Fx + ((L * u - u * u / 2.0) - (L * x - x * x / 2.0)) / L
+    return np.where(u <= x, left, right)
+
+
+def _values(
+    effect: Effect,
+    L: float,
+    x: float,
+    t: Train,
+    firsts: np.ndarray,
+    heading: int,
+    side: int,
+    fav: tuple[float, float, float],
+) -> np.ndarray:
+    """:func:`_value` for many positions at once (numpy)."""
+    tol = 1e-9 * L
+    v = np.zeros_like(firsts)
+    for p, o in zip(t.P, t.offsets, strict=True):
+        a = firsts + heading * o
+        a = np.where(np.abs(a - x) <= tol, x, a)
+        on = (a >= -tol) & (a <= L + tol)
+        if effect == "M":
+            eta = np.where(a <= x, a * (L - x) / L, x * (L - a) / L)
+        else:
+            left = (a < x) | ((a == x) & (side < 0))
+            eta = np.where(left, -a / L, (L - a) / L)
+        v += p * np.where(on, eta, 0.0)
+    if t.q_around > 0.0:
+        lo, hi, whole = fav
+        a = firsts - heading * t.gap_before
+        b = firsts + heading * (t.length + t.gap_after)
+        a, b = np.minimum(a, b), np.maximum(a, b)
+        a, b = np.maximum(a, lo), np.minimum(b, hi)
+        inside = np.where(
+            b > a, _antiderivative(effect, L, x, b) - _antiderivative(effect, L, x, a), 0.0
         )
+        v += t.q_around * (whole - inside)
     return v
 
 
@@ -174,28 +245,30 @@ def envelope(effect: Effect, L: float, x: float, t: Train) -> Extreme:
     sign = -1.0 if effect == "V-" else 1.0
     best = Extreme(0.0, None)
     marks = (0.0, x, L)
-    for heading in (1, -1):
+    lo, hi = favourable_region(effect, L, x)
+    fav = (lo, hi, _integral(effect, L, x, lo, hi)) if t.q_around > 0.0 else (lo, hi, 0.0)
+    sides = (1,) if effect == "M" else (1, -1)  # the moment has no jump at the station
+    for heading in (1,) if _symmetric(t) else (1, -1):
         edges = (-t.gap_before, t.length + t.gap_after) if t.q_around > 0.0 else ()
-        cands = sorted({b - heading * o for b in marks for o in (*t.offsets, *edges)})
-        pieces: list[float] = list(cands)
-        if t.q_around > 0.0:
+        cands = np.unique([b - heading * o for b in marks for o in (*t.offsets, *edges)])
+        pieces = cands
+        if t.q_around > 0.0 and len(cands) > 1:
             # vertices of the quadratic pieces between consecutive breakpoints
-            for a, b in itertools.pairwise(cands):
-                if b - a < 1e-9:
-                    continue
-                xs = (a + 0.25 * (b - a), a + 0.5 * (b - a), a + 0.75 * (b - a))
-                ys = [_value(effect, L, x, t, c, heading, 1) for c in xs]
-                h = xs[1] - xs[0]
-                curv = ys[0] - 2.0 * ys[1] + ys[2]
-                if abs(curv) > 1e-12 * (abs(ys[1]) + 1.0):
-                    c = xs[1] - h * (ys[2] - ys[0]) / (2.0 * curv)
-                    if a < c < b:
-                        pieces.append(c)
-        for first in pieces:
-            for side in (1, -1):
-                v = sign * _value(effect, L, x, t, first, heading, side)
-                if v > sign * best.value + 1e-9 * (abs(best.value) + 1.0):
-                    best = Extreme(sign * v, Placement(first, heading))
+            a, b = cands[:-1], cands[1:]
+            w = b - a
+            xs = [a + f * w for f in (0.25, 0.5, 0.75)]
+            y0, y1, y2 = (_values(effect, L, x, t, c, heading, 1, fav) for c in xs)
+            curv = y0 - 2.0 * y1 + y2
+            ok = (w > 1e-9) & (np.abs(curv) > 1e-12 * (np.abs(y1) + 1.0))
+            c = xs[1] - 0.25 * w * (y2 - y0) / np.where(ok, 2.0 * curv, 1.0)
+            ok &= (c > a) & (c < b)
+            pieces = np.concatenate([cands, c[ok]])
+        for side in sides:
+            vals = sign * _values(effect, L, x, t, pieces, heading, side, fav)
+            k = int(np.argmax(vals))
+            v = float(vals[k])
+            if v > sign * best.value + 1e-9 * (abs(best.value) + 1.0):
+                best = Extreme(sign * v, Placement(float(pieces[k]), heading))
     return best
 
 

@@ -40,8 +40,13 @@ def summary(st: Styles, m: MemberResult, system: str, width: float, measure) -> 
         grid(st, h, rows, [width * x for x in w], (2,)),
         Paragraph(
             "Where the loads stand for each value is in the limit state's working and in the "
-            "envelopes below. A posting load is arithmetic on the rating factor for the owner's "
-            "decision, not a posting decision by itself.",
+            "envelopes below."
+            + (
+                " A posting load is arithmetic for the owner's decision, not a posting "
+                "decision by itself."
+                if any(r.consequence for r in m.summary)
+                else ""
+            ),
             st.small,
         ),
     ]

@@ -207,3 +207,28 @@ def test_assumptions_name_the_web_methods_with_their_sources() -> None:
     assert "thinnest cut" in local.value and "net vertical section" in local.value
     assert "from memory" in items["factor gamma_M1"].source
     assert items["standard family"].value.startswith("EN 1993")
+
+
+@pytest.mark.parametrize("family", FAMILIES)
+def test_cover_plate_lines_add_left_and_right(family) -> None:
+    # every other rivet of the left cover line missing: its gap doubles. The two lines of the
+    # interface carry Rr / (2 p) + Rr / p = 1.5 Rr / p against 2 Rr / p as-built: ratio 0.75
+    # (statics of the shear flow shared by two lines; "twice the weaker" would give 0.5)
+    d = copy.deepcopy(BASE)
+    m = d["members"][0]
+    p = m["section"]["girder"]["pitch_cover"] / 1000.0
+    n = int(6.0 / p)
+    m["rivets"] = [
+        {
+            "line": "cover_bottom_l",
+            "run": {"start": p / 2, "end": p / 2 + (n - 1) * p, "pitch": p, "state": "sound"},
+            "states": [
+                {"position": round(p / 2 + k * p, 6), "state": "missing"} for k in range(1, n, 2)
+            ],
+        }
+    ]
+    for s in m["stations"]:
+        s["position"] = 3.0 if s is m["stations"][0] else s["position"]
+    a = assess(survey(d), AssessOptions(standard=family, gap_window=200.0))
+    ls = a.members[0].stations[0].limit_state("rivets:cover_bottom_l+cover_bottom_r")
+    assert ls.ratio == pytest.approx(0.75, rel=1e-9)
