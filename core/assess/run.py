@@ -184,26 +184,30 @@ def member_summary(
     opts: AssessOptions,
     system: str,
 ) -> tuple[SummaryRow, ...]:
-    """The worst value of the family's measure per load case over the member, with where it
-    occurs and what follows (a posting load for a legal vehicle)."""
+    """Per load case, the worst value of the family's measure of each limit state over the
+    member (the worst first), with where it occurs; the first row of a case says what follows
+    (a posting load for a legal vehicle, the reserve)."""
     rules = family.rules
     rows = []
     by_key = {c.key: c for c in cases}
     for words, measure, keys, weight in rules.summary_cases(cases, opts):
-        worst = None
+        worst: dict[str, tuple] = {}
         for s in stations:
             eff = effects.get(s.station)
             for ls in s.limit_states:
+                group = ls.key.split(":")[0]
                 r = rate(ls, measure, eff, keys, by_key, mf, member.place(s.station))
-                if r is not None and (worst is None or r.badness < worst[0].badness):
-                    worst = (r, s.station, ls.name)
-        if worst is None:
+                if r is not None and (group not in worst or r.badness < worst[group][0].badness):
+                    worst[group] = (r, s.station, ls.name if group != "rivets" else "rivet lines")
+        if not worst:
             continue
-        r, sid, name = worst
         lf = measure.live_factor
         factor = f"{lf.symbol} {lf.value:g}"
-        conseq = rules.posting(r.value, weight, system) if weight else ""
-        rows.append(SummaryRow(words, r.load, factor, r.symbol, r.value, sid, name, conseq))
+        ranked = sorted(worst.values(), key=lambda w: w[0].badness)
+        for i, (r, sid, name) in enumerate(ranked):
+            # the consequence (posting, reserve) follows from the worst limit state of the case
+            conseq = rules.posting(r.value, weight, system) if i == 0 else ""
+            rows.append(SummaryRow(words, r.load, factor, r.symbol, r.value, sid, name, conseq))
     return tuple(rows)
 
 

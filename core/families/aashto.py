@@ -410,7 +410,8 @@ class Rules:
         return RatingFactor(level, f["gDC"], f["gDW"], gLL)
 
     def posting(self, RF: float, weight: float | None, system: str) -> str:
-        """Posting words for a legal load rating factor (MBE 6A.8.3, from memory)."""
+        """Posting words for a legal load rating factor (MBE 6A.8.3, from memory); nothing
+        for the other levels (``weight`` None)."""
         if weight is None:
             return ""
         if RF >= 1.0:

@@ -283,7 +283,7 @@ class Rules:
         ]
 
     def posting(self, value: float, weight: float | None, system: str) -> str:
-        return ""
+        return f"reserve 1 - D/C = {1.0 - value:.3g}" + (" (overloaded)" if value > 1.0 else "")
 
     def flags(self, survey: Survey) -> list[Flag]:
         use = survey.survey.use

@@ -439,7 +439,7 @@ class Rules:
         return [(f"Eq. 6.10: {c.title}", m, [c.key], None) for c in cases if c.role == "design"]
 
     def posting(self, value: float, weight: float | None, system: str) -> str:
-        return ""
+        return f"reserve 1 - U = {1.0 - value:.3g}" + (" (overloaded)" if value > 1.0 else "")
 
     def flags(self, survey: Survey) -> list[Flag]:
         use = survey.survey.use

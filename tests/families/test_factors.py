@@ -40,6 +40,19 @@ def test_en1993_bridge_partial_factors():
     assert build_family("en1993", AssessOptions(), survey(road)).factor("gamma_Q") == 1.35
 
 
+def test_en1993_takes_lm1_for_a_highway_girder():
+    # use: highway -> LM1 (EN 1991-2 4.3.2) and gamma_Q 1.35 (EN 1990 Table A2.4(B))
+    from core.assess import assess
+
+    road = copy.deepcopy(sample_doc("deck-girder-si.json"))
+    road["survey"]["use"] = "highway"
+    a = assess(survey(road))
+    assert a.family.factor("gamma_Q") == 1.35
+    assert {r.case for r in a.members[0].summary} == {"Eq. 6.10: LM1"}
+    ls = a.members[0].stations[4].limit_state("bending")
+    assert ls.rating.symbol == "U" and "LM1" in ls.rating.load
+
+
 def test_engineer_overrides_are_named_and_checked():
     f = build_family("en1993", AssessOptions(factors={"gamma_M1": 1.0, "eta": 1.2}), SI)
     assert f.factor("gamma_M1") == 1.0 and f.f("gamma_M1").source.startswith("engineer's input")

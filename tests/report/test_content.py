@@ -44,6 +44,7 @@ def test_every_page_has_number_identity_and_checksum(si):
         assert f"page {i} of {rep.pages}" in text
         assert a.survey_id in text and a.title in text
         assert f"SHA-256 {rep.checksum}" in text
+        assert f"standard family: {a.family.short}" in text
 
 
 def test_checksum_is_sha256_of_the_input_bytes(si):
