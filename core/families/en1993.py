@@ -427,7 +427,8 @@ class Rules:
             return [LiveCase("lm71", "LM71", "design", LM71(mf["alpha"].value, track, Lphi), g)]
         if key == "lm1":
             shares = tuple(ll.lane_shares) if ll and ll.lane_shares else None
-            model = LM1(shares, self.factors["alpha_Q"].value, self.factors["alpha_q"].value)
+            f = self.factors
+            model = LM1(shares, f["alpha_Q"].value, f["alpha_q"].value)
             return [LiveCase("lm1", "LM1", "design", model, 1.0 if shares else g)]
         return []
 
@@ -456,9 +457,12 @@ class Rules:
 
 def build(opts: AssessOptions, survey: Survey) -> Family:
     use = survey.survey.use
-    factors = override(default_factors(use), opts.factors, "EN 1993", RANGES)
+    defaults = default_factors(use)
+    key = Rules(defaults, use).model_key(opts)
+    if key != "lm1":  # the LM1 adjustment factors are used with LM1 only
+        defaults = {k: v for k, v in defaults.items() if k not in ("alpha_Q", "alpha_q")}
+    factors = override(defaults, opts.factors, "EN 1993", RANGES)
     rules = Rules(factors, use)
-    key = rules.model_key(opts)
     words = {
         "lm71": "LM71 (railway)",
         "lm1": "LM1 (road)",

@@ -6,45 +6,54 @@ from reportlab.platypus import CondPageBreak, Paragraph
 
 from core.assess.results import MemberResult
 from core.report.fmt import position, position_label, rf, unit_label, value
-from core.report.styles import Styles
+from core.report.styles import MUTED, Styles
 from core.report.tables import caption, grid
 
 
 def summary(st: Styles, m: MemberResult, system: str, width: float, measure) -> list:
-    """One row per load case: the worst value of the family's measure over the member, where
-    it occurs, and what follows (a posting load for a legal vehicle)."""
+    """Per load case, the worst value of the family's measure of each limit state over the
+    member (the worst first), where it occurs, and what follows from the worst (a posting load
+    for a legal vehicle, the reserve)."""
     if not m.summary:
         return []
     name = measure.name if measure is not None else "measure"
-    rows = [
-        [
-            r.case,
-            r.factor,
-            f"{r.symbol} {rf(r.value)}",
-            r.station,
-            r.limit_state,
-            r.consequence or "–",
-        ]
-        for r in m.summary
-    ]
+    rows, last, rules = [], None, []
+    for r in m.summary:
+        first = r.case != last
+        if first and rows:
+            rules.append(len(rows) + 1)
+        rows.append(
+            [
+                r.case if first else "",
+                r.factor if first else "",
+                f"{r.symbol} {rf(r.value)}",
+                r.station,
+                r.limit_state,
+                r.consequence or ("–" if first else ""),
+            ]
+        )
+        last = r.case
     h = ["load case", "factor", "worst", "station", "limit state", "consequence"]
-    w = [0.22, 0.09, 0.1, 0.08, 0.2, 0.31]
+    w = [0.22, 0.1, 0.1, 0.08, 0.2, 0.3]
+    extra = tuple(("LINEABOVE", (0, r), (-1, r), 0.7, MUTED) for r in rules)
+    posting = any(r.consequence.startswith(("posting", "RF")) for r in m.summary)
     return [
         CondPageBreak(120),
         Paragraph(f"Rating summary: {name} per load case", st.h2),
         caption(
             st,
-            f"The worst {name} of the member for each load case, over every station and limit state",
+            f"Per load case the worst {name} of each limit state over every station, the worst "
+            "first; the consequence follows from the worst",
             system,
         ),
-        grid(st, h, rows, [width * x for x in w], (2,)),
+        grid(st, h, rows, [width * x for x in w], (2,), extra=extra),
         Paragraph(
             "Where the loads stand for each value is in the limit state's working and in the "
             "envelopes below."
             + (
                 " A posting load is arithmetic for the owner's decision, not a posting "
                 "decision by itself."
-                if any(r.consequence for r in m.summary)
+                if posting
                 else ""
             ),
             st.small,
