@@ -20,18 +20,7 @@ from core.assess.options import (
     read_options_file,
 )
 from core.errors import InputError
-from core.survey.model import Survey
-
-STRUCTURE_TYPES = (
-    "welded_two_girder",
-    "riveted_two_girder",
-    "eyebar_truss",
-    "three_girder",
-    "four_girder",
-    "multi_girder",
-    "floorbeam",
-    "stringer",
-)
+from core.survey.model import STRUCTURE_TYPES, Survey
 
 
 def add_arguments(p: argparse.ArgumentParser) -> None:

@@ -18,14 +18,7 @@ from collections.abc import Sequence
 
 from core.checks._inputs import Number, internal, stress
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
-from core.checks.rivets import (
-    Ply,
-    RivetGeometry,
-    check_plies,
-    circle_area,
-    geometry_values,
-    governing,
-)
+from core.checks.rivets import Ply, body_shear, governing, prepared, share_notes
 from core.units import to_internal
 
 STANDARD = "AASHTO Manual for Bridge Evaluation / AASHTO LRFD Bridge Design Specifications"
@@ -80,22 +73,13 @@ def rivet_resistance(
     Raises:
         InputError: a value out of range (named), m not 1 to 4, no plies.
     """
-    g = RivetGeometry.of(d, d0, m, pitch, where)
-    plies = check_plies(plies, where)
+    g, plies = prepared(d, d0, m, pitch, plies, where)
     F = stress(Fnv, "Fnv", where=where, high=1000.0)
     phi = internal(phi, "dimensionless", "phi", where=where, low=0.0, high=1.0)
     phi_bb = internal(phi_bb, "dimensionless", "phi_bb", where=where, low=0.0, high=1.0)
-    Ab = circle_area(g.d)
-    Rv = g.m * Ab * F
-    vals = geometry_values(g, Ab, "nominal body area pi d²/4", MBE_RIVETS)
-    vals += [
-        CheckValue("Fnv", F, "stress", "nominal shear stress of the rivet", Fnv_source),
-        CheckValue("Rn,shear", Rv, "force", "shear m Ab Fnv", MBE_RIVETS),
-        CheckValue("phi", phi, "dimensionless", "resistance factor, rivets in shear", MBE_RIVETS),
-    ]
-    modes = [(phi * Rv, Rv, phi, "shear")]
+    vals, shear = body_shear(g, F, Fnv_source, phi, MBE_RIVETS)
+    modes = [shear]
     Lc = g.pitch - g.d0
-    notes = []
     for p in plies:
         if Lc >= 2.0 * g.d:
             Rb, how = 2.4 * g.d * p.t * p.Fu, "2.4 d t Fu"
@@ -115,12 +99,10 @@ def rivet_resistance(
     vals.append(
         CheckValue("phi_bb", phi_bb, "dimensionless", "resistance factor, bearing", BEARING)
     )
-    if g.m > 1 and all(p.share == 1.0 for p in plies):
-        notes.append("each ply assumed to bear the whole rivet force (conservative)")
     return governing(
         modes,
         values=vals,
-        notes=notes,
+        notes=share_notes(g, plies),
         standard=STANDARD,
         edition=EDITION,
         clause="MBE 6A.6.12.5.1 (rivet shear, phi 0.80); LRFD 6.13.2.9 (bearing) (from memory)",

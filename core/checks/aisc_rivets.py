@@ -14,14 +14,7 @@ from collections.abc import Sequence
 
 from core.checks._inputs import Number, internal, stress
 from core.checks.results import CapacityResult, CheckValue
-from core.checks.rivets import (
-    Ply,
-    RivetGeometry,
-    check_plies,
-    circle_area,
-    geometry_values,
-    governing,
-)
+from core.checks.rivets import Ply, body_shear, governing, prepared, share_notes
 from core.units import to_internal
 
 STANDARD = "AISC 360-22 Specification for Structural Steel Buildings"
@@ -55,19 +48,11 @@ def rivet_resistance(
     Raises:
         InputError: a value out of range (named), m not 1 to 4, no plies.
     """
-    g = RivetGeometry.of(d, d0, m, pitch, where)
-    plies = check_plies(plies, where)
+    g, plies = prepared(d, d0, m, pitch, plies, where)
     F = stress(Fnv, "Fnv", where=where, high=1000.0)
     phi = internal(phi, "dimensionless", "phi", where=where, low=0.0, high=1.0)
-    Ab = circle_area(g.d)
-    Rv = g.m * Ab * F
-    vals = geometry_values(g, Ab, "nominal body area pi d²/4", J3)
-    vals += [
-        CheckValue("Fnv", F, "stress", "nominal shear stress of the rivet", Fnv_source),
-        CheckValue("Rn,shear", Rv, "force", "shear m Ab Fnv", J3),
-        CheckValue("phi", phi, "dimensionless", "resistance factor", J3),
-    ]
-    modes = [(phi * Rv, Rv, phi, "shear")]
+    vals, shear = body_shear(g, F, Fnv_source, phi, J3)
+    modes = [shear]
     lc = g.pitch - g.d0
     for p in plies:
         bearing, tear = 2.4 * g.d * p.t * p.Fu, 1.2 * lc * p.t * p.Fu
@@ -83,13 +68,10 @@ def rivet_resistance(
             )
         )
         modes.append((phi * Rb, Rb, phi, f"bearing on {p.name}"))
-    notes = []
-    if g.m > 1 and all(p.share == 1.0 for p in plies):
-        notes.append("each ply assumed to bear the whole rivet force (conservative)")
     return governing(
         modes,
         values=vals,
-        notes=notes,
+        notes=share_notes(g, plies),
         standard=STANDARD,
         edition=EDITION,
         clause="Appendix 5, 5.2.6; J3.7; J3.10 (from memory)",

@@ -19,11 +19,11 @@ from core.checks._inputs import Number, internal, stress
 from core.checks.results import CapacityResult, CheckValue
 from core.checks.rivets import (
     Ply,
-    RivetGeometry,
-    check_plies,
     circle_area,
     geometry_values,
     governing,
+    prepared,
+    share_notes,
 )
 
 STANDARD = "EN 1993-1-8 Design of steel structures: design of joints"
@@ -70,8 +70,7 @@ def rivet_resistance(
         InputError: a value out of range (named), m not 1 to 4, no plies, or a value of
             2.8 e2 / d0 - 1.7 that is not positive (edge distance far below the rules).
     """
-    g = RivetGeometry.of(d, d0, m, pitch, where)
-    plies = check_plies(plies, where)
+    g, plies = prepared(d, d0, m, pitch, plies, where)
     fur = stress(f_ur, "f_ur", where=where, high=1500.0)
     gM2 = internal(gamma_M2, "dimensionless", "gamma_M2", where=where, low=0.5, high=2.0)
     A0 = circle_area(g.d0)
@@ -106,8 +105,7 @@ def rivet_resistance(
             )
         )
         modes.append((phi * Fb, Fb, phi, f"bearing on {p.name}"))
-    if g.m > 1 and all(p.share == 1.0 for p in plies):
-        notes.append("each ply assumed to bear the whole rivet force (conservative)")
+    notes += share_notes(g, plies)
     return governing(
         modes,
         values=vals,

@@ -137,6 +137,35 @@ def circle_area(d: float) -> float:
     return math.pi * d**2 / 4.0
 
 
+def prepared(
+    d: Number, d0: Number | None, m: int, pitch: Number, plies: Sequence[Ply], where: str
+) -> tuple[RivetGeometry, tuple[Ply, ...]]:
+    """The validated geometry and plies of one rivet (see :class:`RivetGeometry`)."""
+    return RivetGeometry.of(d, d0, m, pitch, where), check_plies(plies, where)
+
+
+def body_shear(
+    g: RivetGeometry, Fnv: float, Fnv_source: str, phi: float, src: str
+) -> tuple[list[CheckValue], tuple[float, float, float, str]]:
+    """Shear of a rivet on its nominal body area, Rn = m Ab Fnv: the rows and the mode."""
+    Ab = circle_area(g.d)
+    Rv = g.m * Ab * Fnv
+    vals = geometry_values(g, Ab, "nominal body area pi d²/4", src)
+    vals += [
+        CheckValue("Fnv", Fnv, "stress", "nominal shear stress of the rivet", Fnv_source),
+        CheckValue("Rn,shear", Rv, "force", "shear m Ab Fnv", src),
+        CheckValue("phi", phi, "dimensionless", "resistance factor, rivets in shear", src),
+    ]
+    return vals, (phi * Rv, Rv, phi, "shear")
+
+
+def share_notes(g: RivetGeometry, plies: Sequence[Ply]) -> list[str]:
+    """The note when every ply of a multi-plane rivet is taken to bear the whole force."""
+    if g.m > 1 and all(p.share == 1.0 for p in plies):
+        return ["each ply assumed to bear the whole rivet force (conservative)"]
+    return []
+
+
 def rivet_force(q: Number, gap: Number, n_lines: int = 1, *, where: str = "") -> CheckValue:
     """Force on one rivet, F = q gap / n_lines, N.
 

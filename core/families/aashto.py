@@ -34,10 +34,17 @@ from core.checks.flags import Flag, Level
 from core.checks.flexure import flange_yield, load_shedding_Rb, tension_flange_net_section
 from core.checks.results import ENGINEER
 from core.families.base import Choice, Document, Factor, Family, LimitStateSpec, override
-from core.families.common import local_shear, panel_shear, rivet_groups
-from core.families.context import StationContext, capped, flange_area
+from core.families.common import (
+    RulesBase,
+    line_rivet,
+    local_shear,
+    moment_state,
+    panel_shear,
+    rivet_groups,
+    tension_flange,
+)
+from core.families.context import StationContext, flange_area
 from core.families.liveload import distribution, vehicle_model
-from core.families.material import resolve_material
 from core.families.measures import RatingFactor
 from core.loads.models import HL93
 from core.survey.model import Member, Survey
@@ -164,14 +171,6 @@ def default_factors(level: str, year_built: int | None) -> dict[str, Factor]:
     }
 
 
-def _state(key: str, name: str, kind: str, b, f, Cb, Cf, note: str, effect, flexural, R):
-    return capped(
-        LimitState(
-            key, name, kind, b, f, Cb, Cf, note=note, effect=effect, flexural=flexural, R_effect=R
-        )
-    )
-
-
 def shear_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     """Web panel shear, AASHTO LRFD 6.10.9."""
     m = ctx.material
@@ -232,52 +231,27 @@ def flexure_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
             extra=tuple(vals),
             where=w,
         )
-    b, f = res["built"], res["found"]
     note = (
         "first yield of the gross section, Fn = Rb Rh Fyf (6.10.8); holes only in the tension "
         "flange check; compression flange buckling (6.10.8.2) not checked: an upper bound"
     )
-    return [
-        _state(
-            "flexure", "flexure, flange yield", "moment", b, f, b.Rr, f.Rr, note, "M", True, f.Rr
-        )
-    ]
+    return [moment_state("flexure", "flexure, flange yield", res["built"], res["found"], note)]
 
 
 def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     """Net section of the bottom (tension) flange at its holes (6.10.1.8) as a moment."""
-    out = {}
-    ids = ctx.web.bottom_parts
-    for label, st in (("built", ctx.built), ("found", ctx.found)):
-        Ag = flange_area(st, ids)
-        An = float(sum(st.net.part_area[i] for i in ids))
-        if Ag <= 0 or An >= Ag:
-            return []
+
+    def check(st, An, Ag, w):
         r = tension_flange_net_section(
-            An=An,
-            Ag=Ag,
-            Fu=ctx.material.Fu,
-            Fyt=ctx.material.Fy,
-            where=f"{ctx.where} / tension flange ({label})",
+            An=An, Ag=Ag, Fu=ctx.material.Fu, Fyt=ctx.material.Fy, where=w
         )
-        out[label] = (r, r.Rr * st.gross.props.S_bot)
-    (rb, Mb), (rf, Mf) = out["built"], out["found"]
-    note = "gross-area stress limit at the holes times the gross modulus to the bottom fibre"
-    return [
-        _state(
-            "tension_flange",
-            "tension flange at holes",
-            "moment",
-            rb,
-            rf,
-            Mb,
-            Mf,
-            note,
-            "M",
-            True,
-            Mf,
-        )
-    ]
+        return r, r.Rr * st.gross.props.S_bot
+
+    return tension_flange(
+        ctx,
+        check,
+        "gross-area stress limit at the holes times the gross modulus to the bottom fibre",
+    )
 
 
 def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -286,10 +260,7 @@ def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 
     def check(ctx, line, plies, w):
         return aashto_rivets.rivet_resistance(
-            d=line.d,
-            d0=line.d_hole,
-            m=line.shear_planes,
-            pitch=line.pitch,
+            **line_rivet(line),
             plies=plies,
             Fnv=Fnv.value,
             Fnv_source=Fnv.source,
@@ -311,14 +282,12 @@ LIMIT_STATES = (
 
 
 @dataclass(frozen=True)
-class Rules:
+class Rules(RulesBase):
     """What the AASHTO family decides per survey and member."""
 
     factors: dict
     level: str
-
-    def material(self, survey: Survey):
-        return resolve_material(survey, "aashto")
+    key = "aashto"
 
     def member_factors(self, member: Member, opts: AssessOptions) -> dict[str, Factor]:
         cond = opts.condition or member.condition

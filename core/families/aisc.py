@@ -26,10 +26,17 @@ from core.checks.aisc_flange_yield import flange_yielding, tension_flange_holes
 from core.checks.flags import Flag, Level
 from core.checks.results import ENGINEER
 from core.families.base import Choice, Document, Factor, Family, LimitStateSpec, override
-from core.families.common import local_shear, panel_shear, rivet_groups
-from core.families.context import StationContext, capped, flange_area
+from core.families.common import (
+    RulesBase,
+    line_rivet,
+    local_shear,
+    moment_state,
+    panel_shear,
+    rivet_groups,
+    tension_flange,
+)
+from core.families.context import StationContext, flange_area
 from core.families.liveload import distribution, vehicle_model
-from core.families.material import resolve_material
 from core.families.measures import DemandCapacity
 from core.survey.model import Member, Survey
 
@@ -157,68 +164,30 @@ def flexure_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
             phi_b=ctx.f("phi_b"),
             where=f"{ctx.where} / flexure ({label})",
         )
-    b, f = res["built"], res["found"]
     note = (
         "flange yielding on the gross section (F4 / F5), hc to the top rivet line; holes only "
         "in the tension flange check; lateral-torsional and local buckling not checked: an "
         "upper bound"
     )
-    return [
-        capped(
-            LimitState(
-                "flexure",
-                "flexure, flange yielding",
-                "moment",
-                b,
-                f,
-                b.Rr,
-                f.Rr,
-                note=note,
-                effect="M",
-                flexural=True,
-                R_effect=f.Rr,
-            )
-        )
-    ]
+    return [moment_state("flexure", "flexure, flange yielding", res["built"], res["found"], note)]
 
 
 def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     """Holes in the tension (bottom) flange, F13.1."""
-    out = {}
-    ids = ctx.web.bottom_parts
-    for label, st in (("built", ctx.built), ("found", ctx.found)):
-        Ag = flange_area(st, ids)
-        An = float(sum(st.net.part_area[i] for i in ids))
-        if Ag <= 0 or An >= Ag:
-            return []
-        out[label] = tension_flange_holes(
+
+    def check(st, An, Ag, w):
+        r = tension_flange_holes(
             Afn=An,
             Afg=Ag,
             Fy=ctx.material.Fy,
             Fu=ctx.material.Fu,
             S_xt=st.gross.props.S_bot,
             phi_b=ctx.f("phi_b"),
-            where=f"{ctx.where} / tension flange ({label})",
+            where=w,
         )
-    b, f = out["built"], out["found"]
-    note = "tensile rupture of the bottom flange at its holes (F13.1)"
-    return [
-        capped(
-            LimitState(
-                "tension_flange",
-                "tension flange at holes",
-                "moment",
-                b,
-                f,
-                b.Rr,
-                f.Rr,
-                note=note,
-                effect="M",
-                flexural=True,
-                R_effect=f.Rr,
-            )
-        )
-    ]
+        return r, r.Rr
+
+    return tension_flange(ctx, check, "tensile rupture of the bottom flange at its holes (F13.1)")
 
 
 def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -227,10 +196,7 @@ def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 
     def check(ctx, line, plies, w):
         return aisc_rivets.rivet_resistance(
-            d=line.d,
-            d0=line.d_hole,
-            m=line.shear_planes,
-            pitch=line.pitch,
+            **line_rivet(line),
             plies=plies,
             Fnv=Fnv.value,
             Fnv_source=Fnv.source,
@@ -251,11 +217,9 @@ LIMIT_STATES = (
 
 
 @dataclass(frozen=True)
-class Rules:
+class Rules(RulesBase):
     factors: dict
-
-    def material(self, survey: Survey):
-        return resolve_material(survey, "aisc")
+    key = "aisc"
 
     def member_factors(self, member: Member, opts: AssessOptions) -> dict[str, Factor]:
         return {"g": distribution(member, opts)}
@@ -272,9 +236,6 @@ class Rules:
                 tr = vehicle_model(member, v, survey.survey.unit_system)
                 out.append(LiveCase(f"vehicle:{v.name}", v.name, "design", tr, g, tr.weight))
         return out
-
-    def design_keys(self, cases: list[LiveCase], opts: AssessOptions) -> list[str]:
-        return [c.key for c in cases if c.role == "design"]
 
     def summary_cases(self, cases: list[LiveCase], opts: AssessOptions):
         m = DemandCapacity(self.factors["LF_D"], self.factors["LF_L"])

@@ -13,17 +13,72 @@
 from __future__ import annotations
 
 from collections.abc import Callable
+from dataclasses import dataclass
 
 from core.assess.results import LimitState
 from core.assess.rivetlines import local_gap, plies
 from core.checks.results import CapacityResult, ShearResult
 from core.checks.web_local_shear import local_web_shear
 from core.definition import RivetLine
-from core.families.context import StationContext, capped, web_area
+from core.families.context import StationContext, capped, flange_area, web_area
+from core.families.material import resolve_material
 from core.section import StationSection
 
 ShearCheck = Callable[[StationSection, float, str], ShearResult]
 RivetCheck = Callable[[StationContext, RivetLine, list, str], CapacityResult]
+HolesCheck = Callable[[StationSection, float, float, str], tuple[CapacityResult, float]]
+
+
+def moment_state(
+    key: str,
+    name: str,
+    b: CapacityResult,
+    f: CapacityResult,
+    note: str,
+    C: tuple[float, float] | None = None,
+) -> LimitState:
+    """A flexural limit state (effect M, system factor applies) from its two results; ``C``
+    gives (as-built, as-found) factored moments where they are not the results' phi Rn."""
+    Cb, Cf = C if C is not None else (b.Rr, f.Rr)
+    ls = LimitState(
+        key, name, "moment", b, f, Cb, Cf, note=note, effect="M", flexural=True, R_effect=Cf
+    )
+    return capped(ls)
+
+
+def tension_flange(ctx: StationContext, check: HolesCheck, note: str) -> list[LimitState]:
+    """The bottom (tension) flange at its holes, as-built and as-found: ``check(section, An,
+    Ag, label)`` gives the family's result and its factored moment. None where the flange
+    has no holes."""
+    out = {}
+    ids = ctx.web.bottom_parts
+    for label, st in (("built", ctx.built), ("found", ctx.found)):
+        Ag = flange_area(st, ids)
+        An = float(sum(st.net.part_area[i] for i in ids))
+        if Ag <= 0 or An >= Ag:
+            return []
+        out[label] = check(st, An, Ag, f"{ctx.where} / tension flange ({label})")
+    (b, Mb), (f, Mf) = out["built"], out["found"]
+    return [moment_state("tension_flange", "tension flange at holes", b, f, note, (Mb, Mf))]
+
+
+@dataclass(frozen=True)
+class RulesBase:
+    """What every family's rules share: the material, the design cases, no consequence."""
+
+    key = ""
+
+    def material(self, survey):
+        return resolve_material(survey, self.key)
+
+    def design_keys(self, cases: list, opts) -> list[str]:
+        return [c.key for c in cases if c.role == "design"]
+
+    def posting(self, value: float, weight: float | None, system: str) -> str:
+        return ""
+
+    def flags(self, survey) -> list:
+        return []
 
 
 def panel_shear(ctx: StationContext, check: ShearCheck) -> LimitState:
@@ -100,6 +155,11 @@ def local_shear(
         R_effect=f.Rr,
     )
     return [capped(ls)]
+
+
+def line_rivet(line: RivetLine) -> dict:
+    """The rivet of a line as the rivet clauses take it: d, d0, m, pitch."""
+    return {"d": line.d, "d0": line.d_hole, "m": line.shear_planes, "pitch": line.pitch}
 
 
 def _groups(ctx: StationContext) -> list[list[RivetLine]]:

@@ -30,11 +30,18 @@ from core.checks.en1993_interaction import SRC_71, bending_shear, flange_contrib
 from core.checks.flags import Flag, Level
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
 from core.families.base import Choice, Document, Factor, Family, LimitStateSpec, override
-from core.families.common import local_shear, panel_shear, rivet_groups
-from core.families.context import StationContext, capped, flange_area
+from core.families.common import (
+    RulesBase,
+    line_rivet,
+    local_shear,
+    moment_state,
+    panel_shear,
+    rivet_groups,
+    tension_flange,
+)
+from core.families.context import StationContext, flange_area
 from core.families.en1993_section import bending, flange_plate, flanges_moment
 from core.families.liveload import distribution
-from core.families.material import resolve_material
 from core.families.measures import Utilisation
 from core.loads.models import LM1, LM71
 from core.survey.model import Member, Survey
@@ -237,35 +244,14 @@ def bending_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     note = f"class {cb} as-built, class {cf} as-found (thickness found)"
     if cf != cb:
         note += ": the loss changed the class"
-    return [
-        capped(
-            LimitState(
-                "bending",
-                "bending resistance",
-                "moment",
-                b,
-                f,
-                b.Rr,
-                f.Rr,
-                note=note,
-                effect="M",
-                flexural=True,
-                R_effect=f.Rr,
-            )
-        )
-    ]
+    return [moment_state("bending", "bending resistance", b, f, note)]
 
 
 def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     """Holes in the tension (bottom) flange, EN 1993-1-1 6.2.5(4)."""
-    out = {}
-    ids = ctx.web.bottom_parts
-    for label, st in (("built", ctx.built), ("found", ctx.found)):
-        Ag = flange_area(st, ids)
-        An = float(sum(st.net.part_area[i] for i in ids))
-        if Ag <= 0 or An >= Ag:
-            return []
-        out[label] = tension_flange_holes(
+
+    def check(st, An, Ag, w):
+        r = tension_flange_holes(
             Af_net=An,
             Af=Ag,
             fy=ctx.material.Fy,
@@ -273,26 +259,11 @@ def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitSt
             W_t=st.gross.props.S_bot,
             gamma_M0=ctx.f("gamma_M0"),
             gamma_M2=ctx.f("gamma_M2"),
-            where=f"{ctx.where} / tension flange ({label})",
+            where=w,
         )
-    b, f = out["built"], out["found"]
-    return [
-        capped(
-            LimitState(
-                "tension_flange",
-                "tension flange at holes",
-                "moment",
-                b,
-                f,
-                b.Rr,
-                f.Rr,
-                note="Eq. 6.16 on the bottom flange",
-                effect="M",
-                flexural=True,
-                R_effect=f.Rr,
-            )
-        )
-    ]
+        return r, r.Rr
+
+    return tension_flange(ctx, check, "Eq. 6.16 on the bottom flange")
 
 
 def interaction_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -337,20 +308,7 @@ def interaction_states(ctx: StationContext, done: tuple = ()) -> list[LimitState
         f"min(Eq. 7.1 for V_Ed, Mc,Rd): {f.notes[0]}; Mpl,Rd of the gross section, Mf,Rd of "
         "the flanges alone"
     )
-    ls = LimitState(
-        "interaction",
-        "bending and shear",
-        "moment",
-        b,
-        f,
-        b.Rn,
-        f.Rn,
-        note=note,
-        effect="M",
-        flexural=True,
-        R_effect=f.Rn,
-    )
-    return [capped(ls)]
+    return [moment_state("interaction", "bending and shear", b, f, note, (b.Rn, f.Rn))]
 
 
 def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -359,10 +317,7 @@ def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 
     def check(ctx, line, plies, w):
         return en1993_rivets.rivet_resistance(
-            d=line.d,
-            d0=line.d_hole,
-            m=line.shear_planes,
-            pitch=line.pitch,
+            **line_rivet(line),
             plies=plies,
             f_ur=fur.value,
             f_ur_source=fur.source,
@@ -386,12 +341,10 @@ LIMIT_STATES = (
 
 
 @dataclass(frozen=True)
-class Rules:
+class Rules(RulesBase):
     factors: dict
     use: str | None
-
-    def material(self, survey: Survey):
-        return resolve_material(survey, "en1993")
+    key = "en1993"
 
     def model_key(self, opts: AssessOptions) -> str:
         if opts.live_load:
@@ -431,9 +384,6 @@ class Rules:
             model = LM1(shares, f["alpha_Q"].value, f["alpha_q"].value)
             return [LiveCase("lm1", "LM1", "design", model, 1.0 if shares else g)]
         return []
-
-    def design_keys(self, cases: list[LiveCase], opts: AssessOptions) -> list[str]:
-        return [c.key for c in cases if c.role == "design"]
 
     def summary_cases(self, cases: list[LiveCase], opts: AssessOptions):
         m = Utilisation(self.factors["gamma_G"], self.factors["gamma_Q"])

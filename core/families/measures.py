@@ -153,118 +153,90 @@ class RatingFactor:
         return flag_rating_factor(subject, r.value, th)
 
 
+def _factor_value(f: Factor) -> CheckValue:
+    return CheckValue(f.symbol, f.value, "dimensionless", f.description, f.source)
+
+
 @dataclass(frozen=True)
-class DemandCapacity:
+class _OverCapacity:
+    """A measure that is a factored demand over the factored resistance (lower is better):
+    demand = dead factor x (DC + DW) + live factor x LL. Subclasses name the symbols."""
+
+    dead: Factor
+    live: Factor
+    name = ""
+    symbol = ""
+    higher_is_better = False
+    SOURCE = ""
+    WORDS = ()  # (symbol, words) of the resistance, dead load, live load, demand
+
+    def rate(
+        self,
+        *,
+        capacity: float,
+        kind: str,
+        flexural: bool,
+        DC: float,
+        DW: float,
+        LL: float,
+        load: str,
+        member: Mapping[str, Factor],
+        where: str = "",
+    ) -> Rating:
+        R, D, L, E = self.WORDS
+        DC, DW = _check(DC, D[0], where), _check(DW, D[0], where)
+        LL = _check(LL, L[0], where, positive=True)
+        demand = self.design(DC, DW, LL)
+        value = min(float("inf") if capacity <= 0.0 else demand / capacity, 1e9)
+        vals = (
+            CheckValue(R[0], capacity, kind, R[1], "the limit state's clause"),
+            CheckValue(D[0], DC + DW, kind, D[1], "load model"),
+            CheckValue(L[0], LL, kind, f"{L[1]}: {load}", "load model"),
+            _factor_value(self.dead),
+            _factor_value(self.live),
+            CheckValue(E[0], demand, kind, E[1], self.SOURCE),
+        )
+        notes = (f"reserve 1 - {self.symbol} = {1.0 - value:.3g}",)
+        return Rating(
+            self.name, self.symbol, value, False, demand, capacity, load, kind, vals, notes
+        )
+
+    @property
+    def live_factor(self) -> Factor:
+        return self.live
+
+    def design(self, DC: float, DW: float, LL: float) -> float:
+        return self.dead.value * (DC + DW) + self.live.value * LL
+
+    def flag(self, subject: str, r: Rating, th: FlagThresholds) -> Flag:
+        return flag_utilisation(subject, r.value, th, self.name)
+
+
+@dataclass(frozen=True)
+class DemandCapacity(_OverCapacity):
     """Demand / design strength with the LRFD combination 1.2 D + 1.6 L."""
 
-    gD: Factor
-    gL: Factor
-    name: str = "demand / capacity"
-    symbol: str = "D/C"
-    higher_is_better: bool = False
+    name = "demand / capacity"
+    symbol = "D/C"
     SOURCE = "AISC 360-22 B3.1 with ASCE/SEI 7-22 2.3.1, combination 2 (from memory)"
-
-    def rate(
-        self,
-        *,
-        capacity: float,
-        kind: str,
-        flexural: bool,
-        DC: float,
-        DW: float,
-        LL: float,
-        load: str,
-        member: Mapping[str, Factor],
-        where: str = "",
-    ) -> Rating:
-        DC, DW = _check(DC, "D", where), _check(DW, "D", where)
-        LL = _check(LL, "L", where, positive=True)
-        demand = self.design(DC, DW, LL)
-        value = float("inf") if capacity <= 0.0 else demand / capacity
-        vals = (
-            CheckValue("phi Rn", capacity, kind, "design strength", "the limit state's clause"),
-            CheckValue("D", DC + DW, kind, "dead load effect", "load model"),
-            CheckValue("L", LL, kind, f"live load effect: {load}", "load model"),
-            CheckValue("1.2", self.gD.value, "dimensionless", self.gD.description, self.gD.source),
-            CheckValue("1.6", self.gL.value, "dimensionless", self.gL.description, self.gL.source),
-            CheckValue("Ru", demand, kind, "required strength 1.2 D + 1.6 L", self.SOURCE),
-        )
-        return Rating(
-            self.name, self.symbol, min(value, 1e9), False, demand, capacity, load, kind, vals
-        )
-
-    @property
-    def live_factor(self) -> Factor:
-        return self.gL
-
-    def design(self, DC: float, DW: float, LL: float) -> float:
-        return self.gD.value * (DC + DW) + self.gL.value * LL
-
-    def flag(self, subject: str, r: Rating, th: FlagThresholds) -> Flag:
-        return flag_utilisation(subject, r.value, th, "demand / capacity")
+    WORDS = (
+        ("phi Rn", "design strength"),
+        ("D", "dead load effect"),
+        ("L", "live load effect"),
+        ("Ru", "required strength 1.2 D + 1.6 L"),
+    )
 
 
 @dataclass(frozen=True)
-class Utilisation:
+class Utilisation(_OverCapacity):
     """Design effect / design resistance with EN 1990 Eq. 6.10 (one variable action)."""
 
-    gamma_G: Factor
-    gamma_Q: Factor
-    name: str = "utilisation"
-    symbol: str = "U"
-    higher_is_better: bool = False
+    name = "utilisation"
+    symbol = "U"
     SOURCE = "EN 1990:2002 Annex A2, Table A2.4(B), Eq. 6.10 (from memory)"
-
-    def rate(
-        self,
-        *,
-        capacity: float,
-        kind: str,
-        flexural: bool,
-        DC: float,
-        DW: float,
-        LL: float,
-        load: str,
-        member: Mapping[str, Factor],
-        where: str = "",
-    ) -> Rating:
-        DC, DW = _check(DC, "G_k", where), _check(DW, "G_k", where)
-        LL = _check(LL, "Q_k", where, positive=True)
-        E_d = self.design(DC, DW, LL)
-        value = float("inf") if capacity <= 0.0 else E_d / capacity
-        vals = (
-            CheckValue("R_d", capacity, kind, "design resistance", "the limit state's clause"),
-            CheckValue(
-                "G_k", DC + DW, kind, "permanent actions (self-weight and surfacing)", "load model"
-            ),
-            CheckValue("Q_k", LL, kind, f"traffic action: {load}", "load model"),
-            CheckValue(
-                "gamma_G",
-                self.gamma_G.value,
-                "dimensionless",
-                self.gamma_G.description,
-                self.gamma_G.source,
-            ),
-            CheckValue(
-                "gamma_Q",
-                self.gamma_Q.value,
-                "dimensionless",
-                self.gamma_Q.description,
-                self.gamma_Q.source,
-            ),
-            CheckValue("E_d", E_d, kind, "design effect gamma_G G_k + gamma_Q Q_k", self.SOURCE),
-        )
-        notes = (f"reserve 1 - U = {1.0 - min(value, 1e9):.3g}",)
-        return Rating(
-            self.name, self.symbol, min(value, 1e9), False, E_d, capacity, load, kind, vals, notes
-        )
-
-    @property
-    def live_factor(self) -> Factor:
-        return self.gamma_Q
-
-    def design(self, DC: float, DW: float, LL: float) -> float:
-        return self.gamma_G.value * (DC + DW) + self.gamma_Q.value * LL
-
-    def flag(self, subject: str, r: Rating, th: FlagThresholds) -> Flag:
-        return flag_utilisation(subject, r.value, th, "utilisation")
+    WORDS = (
+        ("R_d", "design resistance"),
+        ("G_k", "permanent actions (self-weight and surfacing)"),
+        ("Q_k", "traffic action"),
+        ("E_d", "design effect gamma_G G_k + gamma_Q Q_k"),
+    )

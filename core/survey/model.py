@@ -15,7 +15,7 @@ Units of the document:
 from __future__ import annotations
 
 import math
-from typing import Any, Literal
+from typing import Any, Literal, get_args
 
 from pydantic import BaseModel, ConfigDict, Field, PrivateAttr, model_validator
 
@@ -109,6 +109,7 @@ StructureType = Literal[
     "floorbeam",
     "stringer",
 ]
+STRUCTURE_TYPES: tuple[str, ...] = get_args(StructureType)
 
 
 class Vehicle(_Model):
