@@ -1,4 +1,5 @@
-"""``asfound assess FILE``: as-built against as-found at every station of a survey."""
+"""``asfound assess FILE``: as-built against as-found at every station of a survey, under one
+standard family (named, with every factor it used)."""
 
 from __future__ import annotations
 
@@ -6,10 +7,9 @@ import json
 import sys
 
 from core import CAUTION
-from core.assess import AssessOptions, assess
+from core.assess import assess
 from core.assess.export import assessment_dict
-from core.checks import STANDARDS
-from core.checks.rating import RatingFactors
+from core.choices import add_arguments, options_for
 from core.survey import load_survey
 from core.textable import render
 from core.units import display_unit, from_internal, symbol
@@ -23,70 +23,44 @@ def register(sub) -> None:
     )
     p.add_argument("file", help="survey file (JSON, asfound.survey) or field store")
     p.add_argument("--json", action="store_true", help="machine-readable output")
-    p.add_argument(
-        "--standard",
-        choices=sorted(STANDARDS),
-        help="standard for web shear (default: the survey's)",
-    )
     p.add_argument("--units", choices=("si", "us"), help="unit system of the output")
-    p.add_argument(
-        "--depth",
-        choices=("auto", "web", "rivet_lines"),
-        default="auto",
-        help="web depth used for shear (default: auto)",
-    )
-    p.add_argument(
-        "--thickness",
-        choices=("mean", "minimum"),
-        default="mean",
-        help="reading statistic used for A, I, Q (default: mean)",
-    )
-    p.add_argument(
-        "--loose-counts",
-        action="store_true",
-        help="count loose rivets as effective (default: only sound rivets count)",
-    )
-    p.add_argument(
-        "--condition",
-        choices=("good", "fair", "poor"),
-        default="good",
-        help="member condition for the rating's condition factor",
-    )
-    p.add_argument(
-        "--level",
-        choices=("inventory", "operating"),
-        default="inventory",
-        help="rating level (live load factor)",
-    )
+    add_arguments(p)
     p.set_defaults(func=run)
-
-
-def options_from(args) -> AssessOptions:
-    """Assessment options from the command line arguments."""
-    return AssessOptions(
-        standard=args.standard,
-        depth_basis=args.depth,
-        thickness_policy=args.thickness,
-        effective_states=("sound", "loose") if args.loose_counts else ("sound",),
-        rating=RatingFactors(level=args.level, condition=args.condition),
-    )
 
 
 def _conv(v: float | None, kind: str, unit: str) -> float | None:
     return None if v is None else from_internal(v, kind, unit)
 
 
+def _factors(a) -> str:
+    f = a.family
+    rows = [(x.symbol, f"{x.value:.4g}", x.description, x.source) for x in f.factors.values()]
+    for m in a.members:
+        rows += [
+            (f"{m.member}: {x.symbol}", f"{x.value:.4g}", x.description, x.source)
+            for x in m.factors
+        ]
+    return render(
+        ("factor", "value", "what", "source"), rows, "Factors of the family (every one used)"
+    )
+
+
 def run(args) -> int:
     survey, problems = load_survey(args.file)
-    a = assess(survey, options_from(args), tuple(problems))
+    a = assess(survey, options_for(args, survey), tuple(problems))
     system = args.units or a.unit_system
     if args.json:
         json.dump(assessment_dict(a, system), sys.stdout, indent=2, ensure_ascii=False)
         sys.stdout.write("\n")
         return 0
+    fam = a.family
+    ms = fam.measure
     print(f"{a.title}  (survey {a.survey_id})")
-    print(f"standard: {a.standard_title}   units: {system.upper()}   verdict: {a.level.label}")
+    print(f"family: {fam.name}")
+    print(f"measure: {ms.name} {ms.symbol}   units: {system.upper()}   verdict: {a.level.label}")
     print(f"CAUTION: {CAUTION}")
+    print()
+    print(_factors(a))
     for m in a.members:
         print()
         P = display_unit("position", system)
@@ -102,7 +76,7 @@ def run(args) -> int:
                         _conv(ls.C_built, ls.kind, u),
                         _conv(ls.C_found, ls.kind, u),
                         ls.ratio,
-                        ls.RF,
+                        ls.measure,
                         symbol(u),
                         "<" if s.governing is ls else "",
                     )
@@ -117,14 +91,33 @@ def run(args) -> int:
                     "as-built",
                     "as-found",
                     "ratio",
-                    "RF",
+                    ms.symbol,
                     "unit",
                     "governs",
                 ),
                 rows,
-                f"Member {m.member} {m.label}: factored capacities phi Rn ({system.upper()} units)",
+                f"Member {m.member} {m.label}: factored capacities ({system.upper()} units)",
             )
         )
+        if m.summary:
+            print()
+            print(
+                render(
+                    ("case", "factor", "measure", "at", "limit state", "consequence"),
+                    [
+                        (
+                            r.case,
+                            r.factor,
+                            f"{r.symbol} {r.value:.3f}",
+                            r.station,
+                            r.limit_state,
+                            r.consequence,
+                        )
+                        for r in m.summary
+                    ],
+                    f"Member {m.member}: rating summary ({ms.name})",
+                )
+            )
         worst = [f for s in m.stations for f in s.flags if f.level >= 2] + [
             f for f in m.flags if f.level >= 2
         ]
@@ -132,8 +125,15 @@ def run(args) -> int:
             print("\nFlags for review:")
             for f in worst:
                 print(f"  [{f.level.label}] {f.subject}: {f.message}")
+    if a.flags:
+        print("\nSurvey flags:")
+        for f in a.flags:
+            print(f"  [{f.level.label}] {f.subject}: {f.message}")
     if problems:
         print("\nSurvey notes and warnings:")
         for p in problems:
             print(f"  {p}")
+    print(
+        "\nEvery assumption with its source: asfound assess --json, or the report's assumptions page."
+    )
     return 0

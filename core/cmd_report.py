@@ -13,7 +13,7 @@ import sys
 from pathlib import Path
 
 from core import CAUTION
-from core.checks import STANDARDS
+from core.choices import add_arguments
 from core.errors import AsfoundError
 from core.survey import is_store_file
 
@@ -36,11 +36,7 @@ def register(sub: argparse._SubParsersAction) -> None:
         "name with .pdf in the current folder (folder input: ./reports)",
     )
     p.add_argument("--units", choices=("si", "us"), help="unit system (default: the survey's)")
-    p.add_argument(
-        "--standard",
-        choices=sorted(STANDARDS),
-        help="standard for web shear (default: the survey's)",
-    )
+    add_arguments(p)
     p.set_defaults(func=handler)
 
 
@@ -80,7 +76,7 @@ def _outputs(files: list[Path], outdir: Path) -> dict[Path, Path]:
     }
 
 
-def run_folder(folder: Path, outdir: Path, units: str | None, standard: str | None) -> int:
+def run_folder(folder: Path, outdir: Path, units: str | None, args: argparse.Namespace) -> int:
     from core.report import build_report
 
     files = survey_files(folder)
@@ -95,7 +91,7 @@ def run_folder(folder: Path, outdir: Path, units: str | None, standard: str | No
     for i, f in enumerate(files):
         _bar(i, len(files), f.name)
         try:
-            rep = build_report(f, outs[f], units=units, standard=standard)
+            rep = build_report(f, outs[f], units=units, args=args)
         except Exception as e:  # one bad file never stops the rest
             msg = str(e).strip()
             failed.append((f.name, msg))
@@ -117,12 +113,12 @@ def handler(args: argparse.Namespace) -> int:
     src = Path(args.input)
     if src.is_dir():
         out = Path(args.output) if args.output else Path("reports")
-        return run_folder(src, out, args.units, args.standard)
+        return run_folder(src, out, args.units, args)
     out = Path(args.output) if args.output else Path(src.stem + ".pdf")
     if out.is_dir():
         out = out / (src.stem + ".pdf")
     try:
-        rep = build_report(src, out, units=args.units, standard=args.standard)
+        rep = build_report(src, out, units=args.units, args=args)
     except AsfoundError as e:
         print(f"asfound: error: {e}", file=sys.stderr)
         print(f"asfound: no report written ({out} untouched)", file=sys.stderr)

@@ -14,7 +14,7 @@ import time
 from collections.abc import Callable
 from dataclasses import dataclass
 
-from core.assess import AssessOptions, StationResult, assess
+from core.assess import AssessOptions, StationResult, assess, options_from_dict
 from fieldapp.session import Snapshot
 
 
@@ -29,6 +29,7 @@ class LiveResult:
     unit_system: str
     standard_title: str
     seconds: float
+    measure_symbol: str = "RF"
 
 
 Post = Callable[[int, LiveResult | None, str], None]
@@ -39,7 +40,7 @@ class ResultsWorker:
 
     def __init__(self, post: Post, options: AssessOptions | None = None) -> None:
         self._post = post
-        self._options = options or AssessOptions()
+        self._options = options  # None: the survey's own options
         self._cv = threading.Condition()
         self._pending: Snapshot | None = None
         self._stopped = False
@@ -71,7 +72,8 @@ class ResultsWorker:
     def _assess(self, snap: Snapshot) -> None:
         t0 = time.perf_counter()
         try:
-            a = assess(snap.survey, self._options)
+            opts = self._options or options_from_dict(snap.survey.survey.options or {})
+            a = assess(snap.survey, opts)
             sr = a.members[0].stations[0]
         except Exception as e:  # any error of the survey is shown, never raised in a thread
             self._post(snap.seq, None, str(e))
@@ -84,5 +86,6 @@ class ResultsWorker:
             a.unit_system,
             a.standard_title,
             time.perf_counter() - t0,
+            a.family.measure.symbol,
         )
         self._post(snap.seq, res, "")

@@ -24,7 +24,8 @@ LEVEL_MARK = {
 
 @dataclass(frozen=True)
 class Row:
-    """One limit state as text: name, as-built, as-found, ratio, RF, note."""
+    """One limit state as text: name, as-built, as-found, ratio, the family's measure (RF,
+    D/C or U; kept in ``rf``), note."""
 
     key: str
     name: str
@@ -61,7 +62,7 @@ def row(ls: LimitState, system: str) -> Row:
         capacity(ls.C_built, ls.kind, system),
         found,
         ratio_text(ls.ratio),
-        rf_text(ls.RF),
+        rf_text(ls.measure),
         ls.note if ls.C_found is None else "",
     )
 
@@ -114,7 +115,7 @@ def governing_line(sr: StationResult) -> str:
     g = sr.governing
     if g is None:
         return "no limit state could be evaluated"
-    rf = f", RF {rf_text(g.RF)}" if g.RF is not None else ""
+    rf = f", {g.rating.symbol} {rf_text(g.measure)}" if g.rating is not None else ""
     return f"governs: {g.name}, as-found / as-built {ratio_text(g.ratio)}{rf}"
 
 

@@ -1,4 +1,5 @@
-"""Assessment: every station of every member, as-built against as-found, per standard.
+"""Assessment: every station of every member, as-built against as-found, under one standard
+family (its limit states, factors, load model and rating measure).
 
 Public API::
 
@@ -6,14 +7,16 @@ Public API::
     result = assess(survey, AssessOptions(standard="aashto"))
 """
 
-from core.assess.options import AssessOptions
+from core.assess.options import AssessOptions, merged, options_from_dict, read_options_file
 from core.assess.results import (
     Assessment,
     Assumption,
+    EnvelopeRow,
     LimitState,
     LineSummary,
     MemberResult,
     StationResult,
+    SummaryRow,
 )
 from core.assess.run import assess
 
@@ -21,9 +24,14 @@ __all__ = [
     "AssessOptions",
     "Assessment",
     "Assumption",
+    "EnvelopeRow",
     "LimitState",
     "LineSummary",
     "MemberResult",
     "StationResult",
+    "SummaryRow",
     "assess",
+    "merged",
+    "options_from_dict",
+    "read_options_file",
 ]

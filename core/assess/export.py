@@ -9,7 +9,7 @@ from core.assess.results import Assessment, LimitState, StationResult
 from core.units import display_unit, from_internal
 
 FORMAT = "asfound.assessment"
-VERSION = 1
+VERSION = 2
 
 
 def _q(value: float | None, kind: str, system: str) -> dict[str, Any] | None:
@@ -20,6 +20,7 @@ def _q(value: float | None, kind: str, system: str) -> dict[str, Any] | None:
 
 
 def limit_state_dict(ls: LimitState, system: str) -> dict[str, Any]:
+    r = ls.rating
     return {
         "key": ls.key,
         "name": ls.name,
@@ -28,8 +29,32 @@ def limit_state_dict(ls: LimitState, system: str) -> dict[str, Any]:
         "ratio": ls.ratio,
         "demand": _q(ls.demand, ls.kind, system),
         "rating_factor": ls.RF,
-        "reference": ls.found.reference if ls.found is not None else None,
+        "measure": None
+        if r is None
+        else {"name": r.measure, "symbol": r.symbol, "value": r.value, "load": r.load},
+        "reference": ls.reference,
         "note": ls.note,
+    }
+
+
+def family_dict(a: Assessment) -> dict[str, Any]:
+    """The family followed: documents, every factor with its source, the measure."""
+    f = a.family
+    if f is None:
+        return {}
+    return {
+        "key": f.key,
+        "name": f.name,
+        "documents": [
+            {"title": d.title, "edition": d.edition, "role": d.role, "points_to": d.pointer}
+            for d in f.documents
+        ],
+        "factors": [
+            {"symbol": x.symbol, "value": x.value, "description": x.description, "source": x.source}
+            for x in f.factors.values()
+        ],
+        "measure": {"name": f.measure.name, "symbol": f.measure.symbol},
+        "depth_basis": f.depth_basis,
     }
 
 
@@ -81,6 +106,7 @@ def assessment_dict(a: Assessment, system: str | None = None) -> dict[str, Any]:
         "title": a.title,
         "standard": a.standard,
         "standard_title": a.standard_title,
+        "family": family_dict(a),
         "unit_system": system,
         "level": a.level.label,
         "caution": CAUTION,
@@ -105,6 +131,39 @@ def assessment_dict(a: Assessment, system: str | None = None) -> dict[str, Any]:
                     {"level": f.level.label, "subject": f.subject, "message": f.message}
                     for f in m.flags
                 ],
+                "factors": [
+                    {
+                        "symbol": x.symbol,
+                        "value": x.value,
+                        "description": x.description,
+                        "source": x.source,
+                    }
+                    for x in m.factors
+                ],
+                "summary": [
+                    {
+                        "case": r.case,
+                        "load": r.load,
+                        "factor": r.factor,
+                        "symbol": r.symbol,
+                        "value": r.value,
+                        "station": r.station,
+                        "limit_state": r.limit_state,
+                        "consequence": r.consequence,
+                    }
+                    for r in m.summary
+                ],
+                "live_load_envelopes": [
+                    {
+                        "station": e.station,
+                        "case": e.case,
+                        "M": _q(e.M, "moment", system),
+                        "V": _q(e.V, "force", system),
+                        "M_at": e.M_at,
+                        "V_at": e.V_at,
+                    }
+                    for e in m.envelopes
+                ],
                 "stations": [station_dict(s, system) for s in m.stations],
             }
             for m in a.members
@@ -114,5 +173,8 @@ def assessment_dict(a: Assessment, system: str | None = None) -> dict[str, Any]:
         ],
         "problems": [
             {"level": p.level, "message": p.message, "where": p.where} for p in a.problems
+        ],
+        "flags": [
+            {"level": f.level.label, "subject": f.subject, "message": f.message} for f in a.flags
         ],
     }

@@ -5,8 +5,8 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from core.checks.flags import Flag, Level, worst
-from core.checks.rating import RatingResult
 from core.checks.results import CapacityResult
+from core.families.measures import Rating
 from core.section import StationSection
 from core.survey.readings import RegionStats
 
@@ -30,9 +30,15 @@ class LimitState:
         name: in words. kind: quantity kind of the capacities (``"force"``, ``"moment"``).
         built, found: the check results (None when not applicable).
         C_built, C_found: factored capacities phi Rn in the internal unit of ``kind``.
-        demand: factored load effect at the station when loads are given.
-        rating: the rating factor result when loads are given.
+        demand: factored load effect at the station when loads are given (unit of ``kind``).
+        rating: the family's measure (rating factor, demand / capacity or utilisation).
         note: why a value is missing or what was assumed here.
+        effect: the load effect the limit state resists, ``"M"`` or ``"V"`` (None: none).
+        flexural: True where the family's system factor applies (flexural and axial effects).
+        R_effect: as-found factored resistance in the unit of ``effect`` (N or N*mm), for
+            the rating (None: not rated).
+        per_effect: capacity unit per unit of the effect (1; Q/I in 1/mm for a rivet line,
+            whose shear flow is q = V Q / I), to give the demand in the capacity's unit.
     """
 
     key: str
@@ -43,8 +49,12 @@ class LimitState:
     C_built: float | None
     C_found: float | None
     demand: float | None = None
-    rating: RatingResult | None = None
+    rating: Rating | None = None
     note: str = ""
+    effect: str | None = None
+    flexural: bool = False
+    R_effect: float | None = None
+    per_effect: float = 1.0
 
     @property
     def ratio(self) -> float | None:
@@ -55,7 +65,20 @@ class LimitState:
 
     @property
     def RF(self) -> float | None:
-        return None if self.rating is None else self.rating.RF
+        """The rating factor (None unless the family's measure is the rating factor)."""
+        if self.rating is None or self.rating.symbol != "RF":
+            return None
+        return self.rating.value
+
+    @property
+    def measure(self) -> float | None:
+        """The family's measure at this station (RF, D/C or U), None when not rated."""
+        return None if self.rating is None else self.rating.value
+
+    @property
+    def reference(self) -> str | None:
+        res = self.found or self.built
+        return None if res is None else res.reference
 
 
 @dataclass(frozen=True)
@@ -89,10 +112,11 @@ class StationResult:
 
     @property
     def governing(self) -> LimitState | None:
-        """The limit state with the lowest rating factor, else the lowest capacity ratio."""
-        rated = [ls for ls in self.limit_states if ls.RF is not None]
+        """The limit state with the worst rating (lowest RF, highest D/C or utilisation),
+        else the lowest capacity ratio."""
+        rated = [ls for ls in self.limit_states if ls.rating is not None]
         if rated:
-            return min(rated, key=lambda ls: ls.RF)
+            return min(rated, key=lambda ls: ls.rating.badness)
         ratioed = [ls for ls in self.limit_states if ls.ratio is not None]
         return min(ratioed, key=lambda ls: ls.ratio) if ratioed else None
 
@@ -115,6 +139,34 @@ class LineSummary:
 
 
 @dataclass(frozen=True)
+class SummaryRow:
+    """One row of a member's rating summary: a load case (level and load), its measure's
+    worst value, where it occurs, and a consequence (e.g. a posting load) in words."""
+
+    case: str
+    load: str
+    factor: str
+    symbol: str
+    value: float | None
+    station: str
+    limit_state: str
+    consequence: str = ""
+
+
+@dataclass(frozen=True)
+class EnvelopeRow:
+    """The live load envelope of one case at one station (N, N*mm) with the placements."""
+
+    station: str
+    x: float
+    case: str
+    M: float
+    V: float
+    M_at: str
+    V_at: str
+
+
+@dataclass(frozen=True)
 class MemberResult:
     member: str
     label: str
@@ -122,6 +174,9 @@ class MemberResult:
     stations: tuple[StationResult, ...]
     lines: tuple[LineSummary, ...]
     flags: tuple[Flag, ...]
+    summary: tuple[SummaryRow, ...] = ()
+    envelopes: tuple[EnvelopeRow, ...] = ()
+    factors: tuple = ()
 
     @property
     def level(self) -> Level:
@@ -130,7 +185,11 @@ class MemberResult:
 
 @dataclass(frozen=True)
 class Assessment:
-    """The whole assessment of a survey."""
+    """The whole assessment of a survey under one standard family.
+
+    ``family`` is the :class:`core.families.base.Family` followed; ``standard`` its key and
+    ``standard_title`` its name; ``flags`` are findings about the whole survey (assumed steel).
+    """
 
     survey_id: str
     title: str
@@ -140,13 +199,15 @@ class Assessment:
     members: tuple[MemberResult, ...]
     assumptions: tuple[Assumption, ...]
     problems: tuple = field(default=())
+    family: object = None
+    flags: tuple[Flag, ...] = ()
 
     @property
     def level(self) -> Level:
-        return max((m.level for m in self.members), default=Level.OK)
+        return max([*(m.level for m in self.members), worst(self.flags)], default=Level.OK)
 
     def all_flags(self) -> list[Flag]:
-        out: list[Flag] = []
+        out: list[Flag] = list(self.flags)
         for m in self.members:
             out += m.flags
             for s in m.stations:

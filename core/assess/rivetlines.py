@@ -1,5 +1,5 @@
-"""Rivet lines along a member: local gaps between effective rivets, and the shear force a
-line can transfer at a station, V = q_r I / Q_out with q_r = n_lines phi Rn / gap."""
+"""Rivet lines along a member: local gaps between effective rivets, and the plies of a rivet
+at a station (measured thickness, share of the rivet force, edge distance)."""
 
 from __future__ import annotations
 
@@ -7,10 +7,9 @@ import bisect
 from collections import Counter
 
 from core.assess.results import LineSummary
-from core.checks.results import CapacityResult
-from core.checks.rivets import A502_GRADE_1, Ply, line_gaps, rivet_resistance
+from core.checks.rivets import Ply, line_gaps
 from core.definition import RivetLine, SectionDefinition, StationLoss
-from core.parts import Angle
+from core.parts import Angle, Part
 from core.survey.model import Member
 
 
@@ -65,6 +64,23 @@ def local_gap(
     return best, f"longest effective gap near the station, {where}"
 
 
+def edge_distance(part: Part, line: RivetLine) -> float | None:
+    """Distance from the rivet line to the ply's free edge across the force (mm): along the
+    plate's width for a plate, to the toe of the pierced leg for an angle (the heel side runs
+    into the other leg); None when the line does not lie within the part."""
+    pos = line.position
+    if isinstance(part, Angle):
+        if line.axis == "horizontal":
+            toe = part.y + part.dir_y * part.b_v
+        else:
+            toe = part.x + part.dir_x * part.b_h
+        e = abs(toe - pos)
+    else:
+        lo, hi = part.long_range
+        e = min(pos - lo, hi - pos)
+    return e if e > 0.0 else None
+
+
 def plies(
     defn: SectionDefinition, line: RivetLine, loss: StationLoss | None, Fu: float
 ) -> list[Ply]:
@@ -72,7 +88,8 @@ def plies(
 
     Thickness: the station's remaining thickness of the part (or leg) if given, else nominal.
     In double shear the middle ply (the web) bears the whole rivet force and each outer ply
-    half of it; in single shear every ply bears all of it.
+    half of it; in single shear every ply bears all of it. Edge distance: see
+    :func:`edge_distance`.
     """
     t_of: dict[tuple[str, str | None], float] = {}
     if loss is not None:
@@ -90,18 +107,5 @@ def plies(
         share = 1.0
         if line.shear_planes == 2 and n == 3 and k != 1:
             share = 0.5
-        out.append(Ply(pid, t, Fu, share))
+        out.append(Ply(pid, t, Fu, share, edge_distance(part, line)))
     return out
-
-
-def rivet_capacity(
-    defn: SectionDefinition, line: RivetLine, loss: StationLoss | None, Fu: float, where: str
-) -> CapacityResult:
-    """Resistance of one rivet of ``line`` (shear and bearing on the plies at the station)."""
-    return rivet_resistance(
-        d=line.d,
-        m=line.shear_planes,
-        plies=plies(defn, line, loss, Fu),
-        material=A502_GRADE_1,
-        where=where,
-    )

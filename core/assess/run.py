@@ -1,32 +1,44 @@
-"""Assess a whole survey: every member and station, as-built against as-found."""
+"""Assess a whole survey under one standard family: every member and station, as-built
+against as-found, the family's limit states and measure, and the member's rating summary."""
 
 from __future__ import annotations
 
-from core.assess.inputs import resolve_material, station_effects, web_geometry
+from core.assess.assumptions import assumptions
+from core.assess.effects import LiveCase, station_effects
+from core.assess.inputs import web_geometry
 from core.assess.options import AssessOptions
-from core.assess.results import Assessment, Assumption, MemberResult, StationResult
+from core.assess.results import (
+    Assessment,
+    EnvelopeRow,
+    MemberResult,
+    StationResult,
+    SummaryRow,
+)
 from core.assess.rivetlines import summarise_line
-from core.assess.station import StationInput, checks_at, depth_used
-from core.checks import STANDARDS
-from core.checks.flags import flag_rivet_line
-from core.checks.results import ENGINEER, FROM_MEMORY, PRACTICE
-from core.checks.rivets import A502_GRADE_1
+from core.assess.station import (
+    checks,
+    design_effects,
+    panel_at,
+    panel_thickness,
+    part_loss_percent,
+    rate,
+    rated,
+    station_flags,
+    web_readings,
+)
+from core.checks.flags import Flag, Level, flag_rivet_line
 from core.errors import InputError
+from core.families import build_family
+from core.families.base import Family
+from core.families.context import StationContext
+from core.families.liveload import NOT_RECORDED
 from core.section import analyse
 from core.survey.model import Member, Survey
 from core.survey.readings import station_stats
 
 
-def panel_at(x: float, span: float, do: float | None) -> str:
-    """Panel kind at x (mm): unstiffened without stiffeners; an end panel within one
-    stiffener spacing of either end; interior otherwise."""
-    if do is None:
-        return "unstiffened"
-    return "end" if x < do or x > span - do else "interior"
-
-
 def assess_member(
-    member: Member, survey: Survey, material, standard: str, opts: AssessOptions
+    member: Member, survey: Survey, material, family: Family, opts: AssessOptions
 ) -> MemberResult:
     """Assess every station of one member.
 
@@ -34,13 +46,24 @@ def assess_member(
         InputError / GeometryError / UnitError: unusable member data (the message names
             member, station and part).
     """
+    rules = family.rules
     defn = member.definition()
     web = web_geometry(defn)
     span = member.span_mm()
     do = member.do_mm()
     built = analyse(defn)
     lines = {ln.id: summarise_line(member, ln, opts.effective_states) for ln in defn.rivet_lines}
+    mf = rules.member_factors(member, opts)
+    cases: list[LiveCase] = rules.live_cases(member, survey, opts)
+    by_key = {c.key: c for c in cases}
+    D, y_depth, depth_words = web.depth(family.depth_basis)
+    if D <= 0.0:
+        raise InputError("the web depth for shear is not positive", where=member.place())
     stations = []
+    envelopes = []
+    all_effects = {}
+    readings = web_readings(member, web.web_id)
+    cache: dict = {}
     for st in member.stations:
         place = member.place(st.id)
         x = st.position_mm(member)
@@ -51,25 +74,46 @@ def assess_member(
                 where=place,
             )
         loss = st.loss(member, opts.thickness_policy)
-        loss_local = st.loss(member, "minimum")
         found = analyse(defn, loss)
-        si = StationInput(
-            defn,
-            built,
-            found,
-            loss_local,
-            web,
-            material,
-            standard,
-            panel_at(x, span, do),
-            do,
-            x,
-            span,
-            station_effects(member, st, x),
-            place,
+        effects = station_effects(member, st, x, span, cases)
+        all_effects[st.id] = effects
+        keys = ["station"] if effects is not None and "station" in effects.live else []
+        keys = keys or rules.design_keys(cases, opts)
+        tw, tw_words = panel_thickness(
+            st.id, readings, defn.part(web.web_id).t, do, span, opts.thickness_policy
         )
-        states, flags, part_loss, D, tw = checks_at(si, lines, opts)
-        e = si.effects
+        ctx = StationContext(
+            family=family,
+            member=mf,
+            defn=defn,
+            built=built,
+            found=found,
+            loss_local=st.loss(member, "minimum"),
+            web=web,
+            D=D,
+            y_depth=y_depth,
+            depth_words=depth_words,
+            tw_panel=tw,
+            tw_words=tw_words,
+            panel=panel_at(x, span, do),
+            do=do,
+            material=material,
+            x=x,
+            span=span,
+            where=place,
+            effects=effects,
+            design=design_effects(family, effects, keys),
+            lines=lines,
+            opts=opts,
+            year_built=survey.survey.year_built,
+            cache=cache,
+        )
+        states = [
+            rated(ls, rate(ls, family.measure, effects, keys, by_key, mf, place))
+            for ls in checks(ctx)
+        ]
+        loss_pct = part_loss_percent(built, found)
+        flags = station_flags(ctx, states, loss_pct, opts)
         stations.append(
             StationResult(
                 member.id,
@@ -78,17 +122,22 @@ def assess_member(
                 built,
                 found,
                 tuple(station_stats(st, member, opts.thickness_policy)),
-                part_loss,
+                loss_pct,
                 tuple(states),
                 tuple(flags),
-                si.panel,
+                ctx.panel,
                 D,
                 tw,
-                None
-                if e is None or not e.has_shear
-                else opts.rating.gDC * e.V_DC + opts.rating.gDW * e.V_DW + opts.rating.gLL * e.V_LL,
+                ctx.design.get("V"),
             )
         )
+        if effects is not None:
+            for k, env in effects.live.items():
+                title = by_key[k].title if k in by_key else "station loads"
+                sh = effects.live_shear(env)
+                envelopes.append(
+                    EnvelopeRow(st.id, x, title, env.M.value, sh.value, env.M.at, sh.at)
+                )
     mflags = []
     for ln in defn.rivet_lines:
         s = lines[ln.id]
@@ -100,137 +149,102 @@ def assess_member(
                 ln.pitch,
                 opts.thresholds,
             )
+    if cases and mf["g"].source == NOT_RECORDED:
+        mflags.append(
+            Flag(
+                Level.REVIEW,
+                f"{member.place()} / live load distribution",
+                "engineer to review: no distribution factor recorded; 1.0 used, which is not "
+                "necessarily conservative",
+            )
+        )
+    summary = member_summary(
+        member, family, stations, all_effects, cases, mf, opts, survey.survey.unit_system
+    )
     return MemberResult(
-        member.id, member.label, span, tuple(stations), tuple(lines.values()), tuple(mflags)
+        member.id,
+        member.label,
+        span,
+        tuple(stations),
+        tuple(lines.values()),
+        tuple(mflags),
+        summary,
+        tuple(envelopes),
+        tuple(mf.values()),
     )
 
 
-def assumptions(
-    survey: Survey,
-    material_notes: list[Assumption],
-    standard: str,
+def member_summary(
+    member: Member,
+    family: Family,
+    stations: list[StationResult],
+    effects: dict,
+    cases: list[LiveCase],
+    mf: dict,
     opts: AssessOptions,
-    members: list[MemberResult],
-) -> list[Assumption]:
-    """Every value the assessment used that the engineer should confirm, with its source."""
-    std = STANDARDS[standard]
-    out = [
-        Assumption(
-            "design standard for web shear",
-            f"{std.title}, {std.edition}, {std.clause}",
-            ENGINEER if (opts.standard or survey.survey.standard) else PRACTICE,
-        ),
-        *material_notes,
-        Assumption(
-            "thickness used for A, I, Q",
-            f"{opts.thickness_policy} of the readings per part region, capped at nominal",
-            ENGINEER + " (default: mean)",
-        ),
-        Assumption(
-            "thickness used for rivet bearing", "minimum of the readings per part region", PRACTICE
-        ),
-        Assumption(
-            "uniform thickness reading",
-            "thins the exposed faces only; faying faces "
-            "(e.g. the web gripped between the flange angles) keep their place",
-            PRACTICE,
-        ),
-        Assumption(
-            "as-found web thickness for panel shear",
-            "the mean web reading at the station (buckling and yield of the panel); where the "
-            "web is cut through, the thinnest loss band on it",
-            PRACTICE,
-        ),
-        Assumption(
-            "loss bands on the web",
-            "checked at the thinnest cut: the as-built panel resistance times "
-            "min(1, tau_max,built / tau_max,found), tau from VQ/It",
-            "asfound method, no source: engineer to review",
-        ),
-        Assumption(
-            "web cut through (perforation or band worn through)",
-            "VQ/It not applicable; panel resistance of the full depth times the share of the "
-            "depth that remains",
-            "asfound estimate, no source: engineer to review",
-        ),
-        Assumption(
-            "effective rivets",
-            ", ".join(opts.effective_states) + " (missing, loose or "
-            "headless rivets otherwise carry nothing)",
-            ENGINEER + " (default: sound only)",
-        ),
-        Assumption(
-            "stretch of a rivet line that governs at a station",
-            "plus or minus "
-            + (f"{opts.gap_window:g} mm" if opts.gap_window else "the web depth")
-            + " around the station",
-            PRACTICE,
-        ),
-        Assumption(
-            "rivet material",
-            f"{A502_GRADE_1.name}: Fnv {A502_GRADE_1.Fnv:.4g} MPa, phi {A502_GRADE_1.phi:g}",
-            A502_GRADE_1.source,
-        ),
-        Assumption(
-            "rivet bearing",
-            "Rn = 2.4 d t Fu on each ply; in double shear the middle ply "
-            "bears the whole force, each outer ply half",
-            "AASHTO LRFD 6.13.2.9 " + FROM_MEMORY,
-        ),
-        Assumption(
-            "shear stress and shear flow",
-            "gross section (rivet holes filled); flexure and tension use the net section",
-            PRACTICE,
-        ),
-        Assumption("tension flange", "bottom flange in tension (sagging moment)", PRACTICE),
-        Assumption(
-            "panel kind",
-            "unstiffened without stiffener spacing; end panel within one "
-            "spacing of a member end; interior otherwise",
-            PRACTICE,
-        ),
-        Assumption(
-            "rating factors",
-            f"condition {opts.rating.condition} (phi_c "
-            f"{opts.rating.phi_c:g}), phi_s {opts.rating.phi_s:g}, gDC {opts.rating.gDC:g}, "
-            f"gDW {opts.rating.gDW:g}, gLL {opts.rating.gLL:g} ({opts.rating.level})",
-            "AASHTO Manual for Bridge Evaluation " + FROM_MEMORY + "; engineer confirms",
-        ),
-    ]
-    for m in members:
-        if m.stations:
-            s = m.stations[0]
-            D, why = depth_used(web_geometry(s.built.definition), standard, opts.depth_basis)
-            out.append(
-                Assumption(
-                    f"web depth D used for shear, member {m.member}",
-                    f"{D:.4g} mm ({why})",
-                    ENGINEER + f" (depth basis '{opts.depth_basis}')",
-                )
-            )
-    return out
+    system: str,
+) -> tuple[SummaryRow, ...]:
+    """Per load case, the worst value of the family's measure of each limit state over the
+    member (the worst first), with where it occurs; the first row of a case says what follows
+    (a posting load for a legal vehicle, the reserve)."""
+    rules = family.rules
+    rows = []
+    by_key = {c.key: c for c in cases}
+    for words, measure, keys, weight in rules.summary_cases(cases, opts):
+        worst: dict[str, tuple] = {}
+        for s in stations:
+            eff = effects.get(s.station)
+            for ls in s.limit_states:
+                group = ls.key.split(":")[0]
+                r = rate(ls, measure, eff, keys, by_key, mf, member.place(s.station))
+                if r is not None and (group not in worst or r.badness < worst[group][0].badness):
+                    worst[group] = (r, s.station, ls.name if group != "rivets" else "rivet lines")
+        if not worst:
+            continue
+        lf = measure.live_factor
+        factor = f"{lf.symbol} {lf.value:g}"
+        ranked = sorted(worst.values(), key=lambda w: w[0].badness)
+        for i, (r, sid, name) in enumerate(ranked):
+            # the consequence (posting, reserve) follows from the worst limit state of the case
+            conseq = rules.posting(r.value, weight, system) if i == 0 else ""
+            rows.append(SummaryRow(words, r.load, factor, r.symbol, r.value, sid, name, conseq))
+    return tuple(rows)
 
 
 def assess(survey: Survey, opts: AssessOptions | None = None, problems: tuple = ()) -> Assessment:
-    """Assess every member of ``survey``.
+    """Assess every member of ``survey`` under one standard family.
+
+    The family is ``opts.standard``, else the survey's; the survey's own options
+    (``survey.options``) are the caller's to merge (see :mod:`core.assess.options`).
 
     Raises:
         InputError / GeometryError / UnitError: the first unusable value, with its place.
     """
     opts = opts or AssessOptions()
-    standard = opts.standard or survey.survey.standard
-    if standard not in STANDARDS:
-        raise InputError(f"unknown standard {standard!r}; known standards: {sorted(STANDARDS)}")
-    material, mat_notes = resolve_material(survey)
-    members = [assess_member(m, survey, material, standard, opts) for m in survey.members]
+    key = opts.standard or survey.survey.standard
+    family = build_family(key, opts, survey)
+    material, mat_notes, assumed = family.rules.material(survey)
+    members = [assess_member(m, survey, material, family, opts) for m in survey.members]
+    flags = list(family.rules.flags(survey))
+    if assumed and key != "aashto":
+        flags.append(
+            Flag(
+                Level.REVIEW,
+                "survey / material",
+                "engineer to review: no material given; the steel is assumed (see the "
+                "assumptions); determine it by coupon tests",
+            )
+        )
     h = survey.survey
     return Assessment(
         h.id,
         h.title or h.structure,
-        standard,
-        STANDARDS[standard].title,
+        key,
+        family.name,
         h.unit_system,
         tuple(members),
-        tuple(assumptions(survey, mat_notes, standard, opts, members)),
+        tuple(assumptions(survey, mat_notes, family, opts, members)),
         tuple(problems),
+        family,
+        tuple(flags),
     )

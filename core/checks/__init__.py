@@ -1,149 +1,16 @@
-"""Capacity checks: web shear per standard, rivets, flexure, material, rating and flags.
+"""Capacity checks, one module per clause or topic, pure functions on scalars in internal
+units (N, mm, MPa; strings with units accepted). Each takes its resistance or partial
+factors as parameters: the standard family (:mod:`core.families`) hands them over.
 
-Pure functions on scalars in internal units (N, mm, MPa; strings with units accepted).
-:func:`web_shear` gives one call signature over the standards in :data:`STANDARDS`.
+- web shear: ``aashto_shear`` (LRFD 6.10.9), ``aisc_shear`` (360-22 G2), ``en1993_shear``
+  (1-5 5.2-5.3) with ``en1993_interaction`` (1-5 5.4 and 7.1); local loss ``web_local_shear``
+- flexure: ``flexure`` (LRFD 6.10.8, 6.10.1.8), ``aisc_flange_yield`` (F4 / F5, F13.1),
+  ``en1993_bending`` (1-1 5.5, 6.2.5; 1-5 4.4)
+- rivets: ``rivets`` (plies, gaps), ``aashto_rivets``, ``aisc_rivets``, ``en1993_rivets``
+- ``material`` (steel by year built), ``flags``, ``results``
 """
 
-from __future__ import annotations
-
-from collections.abc import Callable
-from dataclasses import dataclass
-from typing import Any
-
-from core.checks import aashto_shear, aisc_shear, en1993_shear
-from core.checks._inputs import Number
 from core.checks.aashto_shear import PANELS, Panel
 from core.checks.results import CapacityResult, CheckValue, ShearResult
-from core.errors import InputError
 
-__all__ = [
-    "PANELS",
-    "STANDARDS",
-    "CapacityResult",
-    "CheckValue",
-    "ShearResult",
-    "Standard",
-    "web_shear",
-]
-
-
-@dataclass(frozen=True)
-class Standard:
-    """A design standard the user can pick for web shear."""
-
-    key: str
-    title: str
-    edition: str
-    clause: str
-    shear: Callable[..., ShearResult]
-
-
-def _aashto(*, Fy, E, D, tw, panel, do, bfc, tfc, bft, tft, where="", **kw: Any) -> ShearResult:
-    return aashto_shear.web_shear(
-        Fyw=Fy,
-        E=E,
-        D=D,
-        tw=tw,
-        panel=panel,
-        do=do,
-        bfc=bfc,
-        tfc=tfc,
-        bft=bft,
-        tft=tft,
-        where=where,
-        **kw,
-    )
-
-
-def _aisc(*, Fy, E, D, tw, panel, do, bfc, tfc, bft, tft, where="", **kw: Any) -> ShearResult:
-    return aisc_shear.web_shear(
-        Fy=Fy,
-        E=E,
-        h=D,
-        tw=tw,
-        panel=panel,
-        a=do,
-        bfc=bfc,
-        tfc=tfc,
-        bft=bft,
-        tft=tft,
-        where=where,
-        **kw,
-    )
-
-
-def _en1993(*, Fy, E, D, tw, panel, do, bfc, tfc, bft, tft, where="", **kw: Any) -> ShearResult:
-    return en1993_shear.web_shear(fyw=Fy, E=E, hw=D, t=tw, panel=panel, a=do, where=where, **kw)
-
-
-#: the standards available for web shear, by key
-STANDARDS: dict[str, Standard] = {
-    "aashto": Standard(
-        "aashto", aashto_shear.STANDARD, aashto_shear.EDITION, "Article 6.10.9", _aashto
-    ),
-    "aisc": Standard(
-        "aisc", aisc_shear.STANDARD, aisc_shear.EDITION, "Chapter G, G2.1 and G2.2", _aisc
-    ),
-    "en1993": Standard(
-        "en1993",
-        en1993_shear.STANDARD,
-        en1993_shear.EDITION,
-        "Section 5, 5.2 and 5.3, Annex A.3",
-        _en1993,
-    ),
-}
-
-
-def web_shear(
-    standard: str,
-    *,
-    Fy: Number,
-    E: Number,
-    D: Number,
-    tw: Number,
-    panel: Panel = "unstiffened",
-    do: Number | None = None,
-    bfc: Number | None = None,
-    tfc: Number | None = None,
-    bft: Number | None = None,
-    tft: Number | None = None,
-    where: str = "",
-    **options: Any,
-) -> ShearResult:
-    """Web shear resistance of one panel per the chosen standard.
-
-    Args:
-        standard: a key of :data:`STANDARDS` (``"aashto"``, ``"aisc"``, ``"en1993"``).
-        Fy: web yield strength, MPa. E: modulus, MPa.
-        D: web depth used by the check, mm (D, h or hw of the standard).
-        tw: web thickness, mm. panel: ``"unstiffened"``, ``"interior"`` or ``"end"``.
-        do: transverse stiffener spacing, mm (stiffened panels).
-        bfc, tfc, bft, tft: flange widths and thicknesses, mm (tension field limits;
-            not used by EN 1993-1-5).
-        where: location for error messages.
-        options: standard-specific keywords: AISC ``d`` (overall depth for Aw),
-            ``reduced_tension_field``; EN 1993 ``end_post``, ``eta``, ``gamma_M1``.
-
-    Raises:
-        InputError: unknown standard (the message lists the known ones), or any input
-            error of the standard's check.
-    """
-    key = standard.strip().lower() if isinstance(standard, str) else standard
-    if key not in STANDARDS:
-        raise InputError(
-            f"unknown standard {standard!r}; known standards: {sorted(STANDARDS)}", where=where
-        )
-    return STANDARDS[key].shear(
-        Fy=Fy,
-        E=E,
-        D=D,
-        tw=tw,
-        panel=panel,
-        do=do,
-        bfc=bfc,
-        tfc=tfc,
-        bft=bft,
-        tft=tft,
-        where=where,
-        **options,
-    )
+__all__ = ["PANELS", "CapacityResult", "CheckValue", "Panel", "ShearResult"]

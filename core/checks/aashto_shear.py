@@ -13,7 +13,7 @@ Edition followed: 9th edition (2020). Equation numbers are as recalled (from mem
 - 6.10.9.3.3-1  end panel: Vn = Vcr = C Vp
 
 A web is stiffened only where do <= 3D (6.10.9.1); a wider panel is checked as unstiffened.
-phi_v = 1.0 (6.5.4.2, from memory). All inputs in N, mm, MPa (or strings with units).
+phi_v is the family's (1.00, 6.5.4.2, from memory). All inputs in N, mm, MPa (or strings with units).
 """
 
 from __future__ import annotations
@@ -21,7 +21,7 @@ from __future__ import annotations
 import math
 from typing import Literal
 
-from core.checks._inputs import Number, flanges, length, modulus, stress
+from core.checks._inputs import Number, flanges, internal, length, modulus, stress
 from core.checks.results import ENGINEER, CheckValue, ShearResult
 from core.errors import InputError
 
@@ -30,7 +30,6 @@ PANELS: tuple[str, ...] = ("unstiffened", "interior", "end")
 
 STANDARD = "AASHTO LRFD Bridge Design Specifications"
 EDITION = "9th edition (2020)"
-PHI_V = 1.0
 _MEM = " (equation number from memory)"
 
 
@@ -73,6 +72,7 @@ def web_shear(
     tfc: Number | None = None,
     bft: Number | None = None,
     tft: Number | None = None,
+    phi_v: float,
     where: str = "",
 ) -> ShearResult:
     """Nominal shear resistance of a web panel per AASHTO LRFD 6.10.9.
@@ -85,6 +85,7 @@ def web_shear(
         do: transverse stiffener spacing, mm; required for ``"interior"`` and ``"end"``.
         bfc, tfc, bft, tft: compression / tension flange width and thickness, mm;
             required for ``"interior"`` (proportion check 6.10.9.3.2-1).
+        phi_v: resistance factor for shear (the family's).
         where: location for error messages.
 
     Raises:
@@ -97,6 +98,7 @@ def web_shear(
     E = modulus(E, where=where)
     D = length(D, "D", where=where)
     tw = length(tw, "tw", where=where)
+    phi_v = internal(phi_v, "dimensionless", "phi_v", where=where, low=0.0, high=1.0)
     src = STANDARD
     notes: list[str] = []
     vals: list[CheckValue] = [
@@ -206,7 +208,7 @@ def web_shear(
             f"D/tw = {D / tw:.4g} exceeds {limit:g}, the proportion limit for this web "
             "(6.10.2.1, from memory): engineer to review"
         )
-    notes.append(f"phi_v = {PHI_V} (6.5.4.2, from memory)")
+    notes.append(f"phi_v = {phi_v:g} (6.5.4.2, from memory)")
     notes.append(f"D = {D:g} mm used as the web depth (engineer's assumption)")
     return ShearResult(
         limit_state="web shear",
@@ -214,7 +216,7 @@ def web_shear(
         edition=EDITION,
         clause=f"Article 6.10.9, Eq. {clause}" + _MEM,
         Rn=Vn,
-        phi=PHI_V,
+        phi=phi_v,
         kind="force",
         values=tuple(vals),
         notes=tuple(notes),

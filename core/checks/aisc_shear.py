@@ -10,7 +10,7 @@
   Vn = 0.6 Fy Aw [Cv2 + (1 - Cv2)/(1.15 (a/h + sqrt(1 + (a/h)²)))] (G2-8).
   Cv2 = 1 / 1.10 sqrt(kv E/Fy)/(h/tw) / 1.51 kv E/((h/tw)² Fy) with the limits
   1.10 and 1.37 sqrt(kv E/Fy) (G2-9/-10/-11).
-- phi_v = 0.90 (G1). The phi_v = 1.00 of G2.1(a) for rolled I-shapes with
+- phi_v = 0.90 (G1), given by the family. The phi_v = 1.00 of G2.1(a) for rolled I-shapes with
   h/tw <= 2.24 sqrt(E/Fy) is not used: built-up riveted webs are not rolled shapes.
 
 Equation numbers and the G2-8 branch are as recalled from the 2016/2022 editions
@@ -22,14 +22,13 @@ from __future__ import annotations
 
 import math
 
-from core.checks._inputs import Number, flanges, length, modulus, stress
+from core.checks._inputs import Number, flanges, internal, length, modulus, stress
 from core.checks.aashto_shear import PANELS, Panel
 from core.checks.results import ENGINEER, CheckValue, ShearResult
 from core.errors import InputError
 
 STANDARD = "AISC 360-22 Specification for Structural Steel Buildings"
 EDITION = "2022"
-PHI_V = 0.90
 
 
 def _src(eq: str) -> str:
@@ -75,6 +74,7 @@ def web_shear(
     bft: Number | None = None,
     tft: Number | None = None,
     reduced_tension_field: bool = True,
+    phi_v: float,
     where: str = "",
 ) -> ShearResult:
     """Nominal shear strength of a web panel per AISC 360-22 G2.1 and G2.2.
@@ -90,6 +90,7 @@ def web_shear(
             action in an interior panel (G2.2 limits).
         reduced_tension_field: when the G2.2 proportion limits are not met, use G2-8
             (``True``) or no tension field at all (``False``).
+        phi_v: resistance factor (the family's, 0.90 of G1).
         where: location for error messages.
 
     Raises:
@@ -102,6 +103,7 @@ def web_shear(
     E = modulus(E, where=where)
     h = length(h, "h", where=where)
     tw = length(tw, "tw", where=where)
+    phi_v = internal(phi_v, "dimensionless", "phi_v", where=where, low=0.0, high=1.0)
     notes: list[str] = []
     if d is None:
         d = h
@@ -196,7 +198,7 @@ def web_shear(
                     Vn, clause, tension_field = Vtf, eq, True
                 else:
                     notes.append(f"G2.1 (no tension field) exceeds {eq}; the larger, G2.1, is used")
-    notes.append(f"phi_v = {PHI_V} (G1); the 1.00 of G2.1(a) for rolled I-shapes is not applied")
+    notes.append(f"phi_v = {phi_v:g} (G1); the 1.00 of G2.1(a) for rolled I-shapes is not applied")
     notes.append(f"h = {h:g} mm used as the web depth (engineer's assumption)")
     return ShearResult(
         limit_state="web shear",
@@ -204,7 +206,7 @@ def web_shear(
         edition=EDITION,
         clause=clause + " (from memory)",
         Rn=Vn,
-        phi=PHI_V,
+        phi=phi_v,
         kind="force",
         values=tuple(vals),
         notes=tuple(notes),

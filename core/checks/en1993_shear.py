@@ -10,11 +10,14 @@
   (no longitudinal stiffeners, k_tau,sl = 0); no intermediate stiffeners: k_tau = 5.34
 - Table 5.1: chi_w = eta for lambda_w < 0.83/eta; 0.83/lambda_w up to 1.08; beyond 1.08:
   1.37/(0.7 + lambda_w) with a rigid end post, 0.83/lambda_w with a non-rigid end post.
-- 5.1(2) Note: eta = 1.20 for steel grades up to S460, 1.00 above (recommended value; the
-  National Annex may differ).
-- gamma_M1 = 1.00 (EN 1993-1-1 6.1(1) Note 2B recommended value; National Annex may differ).
+- 5.1(2) Note: eta = 1.20 for steel grades up to S460 (recommended value; the National Annex
+  may differ); the family passes eta = 1.0 for steel of unknown or early grade.
+- gamma_M1 is the family's partial factor (1.10 for bridges, EN 1993-2 Table 6.1); the caller
+  always gives it.
+- The flange contribution Vbf,Rd (5.4) is computed by :mod:`core.checks.en1993_interaction`
+  and given here as ``Vbf_Rd`` (0 when not counted).
 
-The flange contribution Vbf,Rd (5.4) is omitted (conservative). Clause numbers from memory.
+Clause numbers from memory.
 """
 
 from __future__ import annotations
@@ -31,17 +34,11 @@ EndPost = Literal["rigid", "non-rigid"]
 
 STANDARD = "EN 1993-1-5 Design of steel structures: plated structural elements"
 EDITION = "2006"
-GAMMA_M1 = 1.00
 SIGMA_E_COEF = 190_000.0  # MPa, Annex A.1
 
 
 def _src(clause: str) -> str:
     return f"EN 1993-1-5 {clause} (from memory)"
-
-
-def eta_for(fyw: float) -> float:
-    """Recommended eta of 5.1(2): 1.20 up to S460 (fyw <= 460 MPa), 1.00 above."""
-    return 1.2 if fyw <= 460.0 else 1.0
 
 
 def k_tau_for(a_over_hw: float | None) -> float:
@@ -71,9 +68,11 @@ def web_shear(
     t: Number,
     panel: Panel = "unstiffened",
     a: Number | None = None,
+    eta: float,
+    gamma_M1: float,
     end_post: EndPost = "non-rigid",
-    eta: float | None = None,
-    gamma_M1: float = GAMMA_M1,
+    Vbf_Rd: float = 0.0,
+    Vbf_values: tuple[CheckValue, ...] = (),
     E: Number | None = None,
     where: str = "",
 ) -> ShearResult:
@@ -86,8 +85,9 @@ def web_shear(
         end_post: ``"rigid"`` or ``"non-rigid"`` (Table 5.1; default non-rigid,
             the lower chi_w). For an interior panel the engineer may choose ``"rigid"``
             where the adjacent panels anchor the tension field.
-        eta: factor of 5.1(2); ``None``: 1.20 up to S460, 1.00 above.
-        gamma_M1: partial factor, default 1.00 (recommended value).
+        eta: factor of 5.1(2) (1.0 to 1.2; the family's choice).
+        gamma_M1: partial factor (the family's).
+        Vbf_Rd: design flange contribution of 5.4, N (0: not counted); Vbf_values its working.
         E: accepted for a common call signature and only reported; sigma_E uses the
             standard's 190 000 MPa.
         where: location for error messages.
@@ -104,16 +104,8 @@ def web_shear(
     t = length(t, "t", where=where)
     gM1 = internal(gamma_M1, "dimensionless", "gamma_M1", where=where, low=0.0, high=2.0)
     notes: list[str] = []
-    if eta is None:
-        eta = eta_for(fyw)
-        notes.append(
-            f"eta = {eta:g} (5.1(2) recommended value for fyw = {fyw:g} MPa; "
-            "the National Annex may differ)"
-        )
-    else:
-        eta = internal(
-            eta, "dimensionless", "eta", where=where, low=1.0, high=1.2, low_inclusive=True
-        )
+    eta = internal(eta, "dimensionless", "eta", where=where, low=1.0, high=1.2, low_inclusive=True)
+    Vbf = internal(Vbf_Rd, "force", "Vbf,Rd", where=where, low=0.0, high=1e12, low_inclusive=True)
     vals = [
         CheckValue("fyw", fyw, "stress", "yield strength of the web", ENGINEER),
         CheckValue("hw", hw, "length", "web depth used", ENGINEER),
@@ -153,7 +145,8 @@ def web_shear(
         CheckValue("lambda_w", lambda_w, "dimensionless", "slenderness parameter", _src("5.3(3)")),
         CheckValue("eta", eta, "dimensionless", "shear area factor", _src("5.1(2)")),
         CheckValue("chi_w", chi_w, "dimensionless", "web contribution factor", _src(branch)),
-        CheckValue("gamma_M1", gM1, "dimensionless", "partial factor", "EN 1993-1-1 6.1"),
+        CheckValue("gamma_M1", gM1, "dimensionless", "partial factor", "EN 1993-2 Table 6.1"),
+        CheckValue("Vbw,Rd", Vbw / gM1, "force", "web contribution", _src("5.2, Eq. 5.2")),
         CheckValue(
             "eta fyw hw t/(sqrt(3) gamma_M1)",
             cap / gM1,
@@ -162,17 +155,18 @@ def web_shear(
             _src("5.2(1), Eq. 5.1"),
         ),
     ]
-    Vn = min(Vbw, cap)
+    vals += list(Vbf_values)
+    vals.append(
+        CheckValue("Vbf,Rd", Vbf, "force", "flange contribution (5.4)", _src("5.4, Eq. 5.8"))
+    )
+    Vn = min(Vbw + Vbf * gM1, cap)
     notes += [
         "sigma_E = 190 000 (t/hw)² MPa is pi² E/(12(1 - nu²)) with E = 210 000 MPa, nu = 0.3 "
         "(Annex A.1)",
-        f"gamma_M1 = {gM1:g}"
-        + (
-            " (recommended value; the National Annex may differ)"
-            if gM1 == GAMMA_M1
-            else " (engineer's input)"
-        ),
-        "flange contribution Vbf,Rd (5.4) omitted (conservative)",
+        f"gamma_M1 = {gM1:g} (the family's partial factor)",
+        "flange contribution Vbf,Rd (5.4) counted"
+        if Vbf > 0
+        else "flange contribution Vbf,Rd (5.4) not counted",
         f"end post taken as {end_post} (Table 5.1)",
         f"hw = {hw:g} mm used as the web depth (engineer's assumption)",
     ]
@@ -180,7 +174,9 @@ def web_shear(
         limit_state="web shear",
         standard=STANDARD,
         edition=EDITION,
-        clause="5.2, Eq. 5.2 with Table 5.1 (from memory)",
+        clause="5.2, Eq. 5.1 and 5.2 with Table 5.1"
+        + (" and 5.4" if Vbf > 0 else "")
+        + " (from memory)",
         Rn=Vn,
         phi=1.0 / gM1,
         kind="force",

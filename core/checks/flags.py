@@ -42,8 +42,8 @@ class FlagThresholds:
     """Thresholds of the flags (asfound defaults, common practice, no source).
 
     Rising thresholds (worse when larger): section loss % of a part; number of ineffective
-    rivets in a line; longest gap / nominal pitch. Falling thresholds (worse when smaller):
-    capacity ratio as-found / as-built; rating factor.
+    rivets in a line; longest gap / nominal pitch; demand / capacity or utilisation. Falling
+    thresholds (worse when smaller): capacity ratio as-found / as-built; rating factor.
 
     Raises:
         InputError: a threshold not finite or the three levels out of order.
@@ -64,14 +64,17 @@ class FlagThresholds:
     gap_watch: float = 1.5
     gap_review: float = 2.5
     gap_urgent: float = 4.0
+    util_watch: float = 0.75
+    util_review: float = 0.90
+    util_urgent: float = 1.00
 
     def __post_init__(self) -> None:
-        for name in ("loss", "ratio", "rf", "rivets", "gap"):
+        for name in ("loss", "ratio", "rf", "rivets", "gap", "util"):
             w, r, u = (getattr(self, f"{name}_{lv}") for lv in ("watch", "review", "urgent"))
             for lv, v in (("watch", w), ("review", r), ("urgent", u)):
                 if not isinstance(v, int | float) or not math.isfinite(v) or v < 0:
                     raise InputError(f"threshold {name}_{lv} = {v!r} must be a number >= 0")
-            rising = name in ("loss", "rivets", "gap")
+            rising = name in ("loss", "rivets", "gap", "util")
             ok = w < r < u if rising else w > r > u
             if not ok:
                 order = "watch < review < urgent" if rising else "watch > review > urgent"
@@ -191,22 +194,24 @@ def flag_rivet_line(
     return out
 
 
-def flag_utilisation(subject: str, demand: float, capacity: float) -> Flag:
-    """Flag demand / factored capacity: above 1.0 needs immediate attention, above 0.9 review
-    (asfound defaults, common practice, no source)."""
-    d = _finite(demand, "demand", subject)
-    c = _finite(capacity, "capacity", subject)
-    if c <= 0.0:
-        return Flag(
-            Level.URGENT, subject, f"{Level.URGENT.label}: capacity {c:.3g} is not positive", c, 0.0
-        )
-    u = abs(d) / c
-    for lv, t in ((Level.URGENT, 1.0), (Level.REVIEW, 0.9), (Level.WATCH, 0.75)):
-        if u > t:
-            msg = f"{lv.label}: demand / capacity {u:.3g} is above the '{lv.label}' threshold {t:g}"
-            return Flag(lv, subject, msg, u, t)
-    msg = f"{Level.OK.label}: demand / capacity {u:.3g} is at or below the 'keep watching' threshold 0.75"
-    return Flag(Level.OK, subject, msg, u, 0.75)
+def flag_utilisation(
+    subject: str, value: float, th: FlagThresholds | None = None, what: str = "utilisation"
+) -> Flag:
+    """Flag a demand / capacity ratio or a utilisation (above 1.0 needs immediate attention
+    by default; asfound defaults, common practice, no source)."""
+    th = th or FlagThresholds()
+    v = _finite(value, what, subject)
+    if v > th.util_urgent:
+        lv, t = Level.URGENT, th.util_urgent
+    elif v > th.util_review:
+        lv, t = Level.REVIEW, th.util_review
+    else:
+        lv, t = (Level.WATCH if v > th.util_watch else Level.OK), th.util_watch
+    cmp = "above" if lv > Level.OK else "at or below"
+    name = lv.label if lv > Level.OK else Level.WATCH.label
+    return Flag(
+        lv, subject, f"{lv.label}: {what} {v:.3g} is {cmp} the '{name}' threshold {t:g}", v, t
+    )
 
 
 def flag_not_applicable(subject: str, reason: str) -> Flag:

@@ -1,65 +1,133 @@
-"""Flexure: yield moment from the elastic section moduli, and net section of a tension flange.
+"""Flexure in the AASHTO family: flange yield and the tension flange at its holes.
 
-- My = Fy S at the top and at the bottom fibre; the smaller governs (first yield, elastic
-  beam theory). As-built and as-found are two calls with the two sets of moduli.
-- Tension flange at holes, AASHTO LRFD 6.10.1.8 (net section fracture, from memory):
-  ft <= 0.84 (An/Ag) Fu <= Fyt, with ft the stress on the gross area of the tension flange
-  from factored loads. Fracture does not govern once An/Ag >= Fyt / (0.84 Fu).
-- phi_f = 1.00 (AASHTO LRFD 6.5.4.2, from memory).
+AASHTO LRFD Bridge Design Specifications, 9th edition (2020), from memory:
+
+- 6.10.8.1.1 / 6.10.8.3: the flange stress limit of a noncomposite I-section is
+  Fn = Rb Rh Fyf for the compression flange where local and lateral-torsional buckling do not
+  govern (6.10.8.2.2 and 6.10.8.2.3 are part 2 of the family and not checked here: this is an
+  upper bound, said so on the assumptions page), and Fn = Rh Fyt for the tension flange.
+  As moments: Mn = Fn S of each flange's fibre, on the gross section (first yield).
+- Rh = 1.0 for a homogeneous section (6.10.1.10.1).
+- Rb, the web load-shedding factor (6.10.1.10.2): Rb = 1 where 2Dc/tw <= lambda_rw =
+  5.7 sqrt(E/Fyc), else Rb = 1 - a_wc / (1200 + 300 a_wc) (2Dc/tw - lambda_rw) <= 1.0 with
+  a_wc = 2 Dc tw / (bfc tfc).
+- 6.10.1.8 (net section fracture of a tension flange at holes): ft <= 0.84 (An/Ag) Fu <= Fyt,
+  ft the stress on the gross area of the tension flange; it does not govern once
+  An/Ag >= Fyt / (0.84 Fu).
+- phi_f = 1.00 (6.5.4.2).
 """
 
 from __future__ import annotations
 
-from core.checks._inputs import Number, internal, stress
+import math
+
+from core.checks._inputs import Number, internal, length, modulus, stress
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
 from core.errors import InputError
 
 AASHTO = "AASHTO LRFD Bridge Design Specifications"
 AASHTO_EDITION = "9th edition (2020)"
-PHI_F = 1.00
+MEMORY = " (from memory)"
+
+
+def _src(clause: str) -> str:
+    return f"AASHTO LRFD {AASHTO_EDITION}, {clause}{MEMORY}"
 
 
 def _modulus(x: Number, name: str, where: str) -> float:
     return internal(x, "section_modulus", name, where=where, low=0.0, high=1e12)
 
 
-def yield_moment(*, Fy: Number, S_top: Number, S_bottom: Number, where: str = "") -> CapacityResult:
-    """Yield moment My = Fy min(S_top, S_bottom).
+def load_shedding_Rb(
+    *, Dc: Number, tw: Number, bfc_tfc: Number, E: Number, Fyc: Number, where: str = ""
+) -> tuple[float, list[CheckValue]]:
+    """Web load-shedding factor Rb (6.10.1.10.2) and its working.
 
     Args:
-        Fy: yield strength, MPa (for a hybrid section give the flange that yields first).
-        S_top, S_bottom: elastic section moduli to the top and bottom fibres, mm³.
-        where: location for error messages.
+        Dc: depth of the web in compression (elastic), mm; tw: web thickness, mm;
+        bfc_tfc: area of the compression flange, mm²; E, Fyc: MPa.
 
-    Returns:
-        A result of kind ``"moment"`` (N·mm) with My,top, My,bottom and the governing fibre.
+    Raises:
+        InputError: a value out of range.
+    """
+    Dc = internal(Dc, "length", "Dc", where=where, low=0.0, high=20_000.0, low_inclusive=True)
+    tw = length(tw, "tw", where=where)
+    Af = internal(bfc_tfc, "area", "bfc tfc", where=where, low=0.0, high=1e8)
+    E = modulus(E, where=where)
+    Fyc = stress(Fyc, "Fyc", where=where)
+    lam_rw = 5.7 * math.sqrt(E / Fyc)
+    slender = 2.0 * Dc / tw
+    a_wc = 2.0 * Dc * tw / Af
+    Rb = 1.0 if slender <= lam_rw else min(1.0 - a_wc / (1200 + 300 * a_wc) * (slender - lam_rw), 1)
+    src = _src("6.10.1.10.2")
+    vals = [
+        CheckValue("Dc", Dc, "length", "depth of the web in compression (elastic)", src),
+        CheckValue("2Dc/tw", slender, "dimensionless", "web slenderness in compression", src),
+        CheckValue("lambda_rw", lam_rw, "dimensionless", "5.7 sqrt(E/Fyc)", src),
+        CheckValue("a_wc", a_wc, "dimensionless", "2 Dc tw / (bfc tfc)", src),
+        CheckValue("Rb", Rb, "dimensionless", "web load-shedding factor", src),
+    ]
+    return max(Rb, 0.0), vals
+
+
+def flange_yield(
+    *,
+    Fyc: Number,
+    Fyt: Number,
+    S_c: Number,
+    S_t: Number,
+    Rb: float = 1.0,
+    Rh: float = 1.0,
+    phi_f: float,
+    extra: tuple[CheckValue, ...] = (),
+    where: str = "",
+) -> CapacityResult:
+    """Nominal flexural resistance from the flange stress limits Fnc = Rb Rh Fyc and
+    Fnt = Rh Fyt (6.10.8.1.1 / 6.10.8.3), as moments Fn S on the gross section.
+
+    Args:
+        Fyc, Fyt: yield strengths of the compression and tension flanges, MPa.
+        S_c, S_t: elastic section moduli to the compression and tension fibres, mm³.
+        Rb, Rh: factors of 6.10.1.10 (see :func:`load_shedding_Rb`).
+        phi_f: resistance factor for flexure (the family's, 1.00).
+        extra: values of the working computed elsewhere (Rb's), listed first.
 
     Raises:
         InputError: a value not positive or out of range.
     """
-    Fy = stress(Fy, "Fy", where=where)
-    St = _modulus(S_top, "S_top", where)
-    Sb = _modulus(S_bottom, "S_bottom", where)
-    Mt, Mb = Fy * St, Fy * Sb
-    fibre = "top" if Mt <= Mb else "bottom"
-    mech = "elastic beam theory, first yield (common practice)"
+    Fyc = stress(Fyc, "Fyc", where=where)
+    Fyt = stress(Fyt, "Fyt", where=where)
+    Sc, St = _modulus(S_c, "S_c", where), _modulus(S_t, "S_t", where)
+    Rb = internal(Rb, "dimensionless", "Rb", where=where, low=0.0, high=1.0, low_inclusive=True)
+    Rh = internal(Rh, "dimensionless", "Rh", where=where, low=0.0, high=1.0)
+    phi = internal(phi_f, "dimensionless", "phi_f", where=where, low=0.0, high=1.0)
+    Mc, Mt = Rb * Rh * Fyc * Sc, Rh * Fyt * St
     vals = (
-        CheckValue("Fy", Fy, "stress", "yield strength", ENGINEER),
-        CheckValue("S_top", St, "section_modulus", "elastic section modulus, top fibre", mech),
-        CheckValue("S_bottom", Sb, "section_modulus", "elastic section modulus, bottom", mech),
-        CheckValue("My,top", Mt, "moment", "yield moment, top fibre Fy S_top", mech),
-        CheckValue("My,bottom", Mb, "moment", "yield moment, bottom fibre Fy S_bottom", mech),
+        *extra,
+        CheckValue("Fyc", Fyc, "stress", "yield strength, compression flange", ENGINEER),
+        CheckValue("Fyt", Fyt, "stress", "yield strength, tension flange", ENGINEER),
+        CheckValue("Rh", Rh, "dimensionless", "hybrid factor (homogeneous)", _src("6.10.1.10.1")),
+        CheckValue("S_c", Sc, "section_modulus", "elastic modulus, compression fibre", ENGINEER),
+        CheckValue("S_t", St, "section_modulus", "elastic modulus, tension fibre", ENGINEER),
+        CheckValue("Mn,c", Mc, "moment", "Rb Rh Fyc S_c", _src("6.10.8.1.1")),
+        CheckValue("Mn,t", Mt, "moment", "Rh Fyt S_t", _src("6.10.8.3")),
+        CheckValue("phi_f", phi, "dimensionless", "resistance factor, flexure", _src("6.5.4.2")),
     )
+    which = "compression" if Mc <= Mt else "tension"
     return CapacityResult(
-        limit_state="yield moment",
+        limit_state="flexure, flange yield",
         standard=AASHTO,
         edition=AASHTO_EDITION,
-        clause="My = Fy S (first yield); phi_f per 6.5.4.2 (from memory)",
-        Rn=min(Mt, Mb),
-        phi=PHI_F,
+        clause="6.10.8.1.1 and 6.10.8.3, Fn = Rb Rh Fyf, on the gross section" + MEMORY,
+        Rn=min(Mc, Mt),
+        phi=phi,
         kind="moment",
         values=vals,
-        notes=(f"the {fibre} fibre yields first",),
+        notes=(
+            f"the {which} flange governs",
+            "lateral-torsional and flange local buckling (6.10.8.2) not checked here: "
+            "an upper bound",
+        ),
     )
 
 
@@ -107,7 +175,7 @@ def tension_flange_net_section(
     Fyt = stress(Fyt, "Fyt", where=where)
     if Fu < Fyt:
         raise InputError(f"Fu = {Fu:g} MPa is below Fyt = {Fyt:g} MPa", where=where)
-    src = "AASHTO LRFD 6.10.1.8-1 (from memory)"
+    src = _src("6.10.1.8-1")
     frac = 0.84 * ratio * Fu
     vals = [
         CheckValue("An/Ag", ratio, "dimensionless", "net to gross area of the tension flange", src),
@@ -132,7 +200,7 @@ def tension_flange_net_section(
         limit_state="tension flange at holes",
         standard=AASHTO,
         edition=AASHTO_EDITION,
-        clause="6.10.1.8, Eq. 6.10.1.8-1 (from memory)",
+        clause="6.10.1.8, Eq. 6.10.1.8-1" + MEMORY,
         Rn=limit,
         phi=1.0,
         kind="stress",

@@ -1,12 +1,10 @@
-"""Rivets: resistance of one rivet, the force each rivet carries, and the gaps in a line.
+"""Rivets: what every family's rivet check shares, the force each rivet carries, and the
+gaps between effective rivets along a line.
 
-- Shear: Rn = m Ab Fnv, Ab = pi d²/4 (nominal body area), m shear planes.
-- Bearing on each pierced ply: Rn = 2.4 d t Fu on the measured thickness (AASHTO LRFD
-  6.13.2.9, standard holes; from memory). A ply that bears only part of the rivet force
-  (an outer ply of a double-shear rivet bears half) is given its ``share``; the default
-  share 1.0 is conservative.
-- Rivets of unknown grade: ASTM A502 Grade 1, Fnv = 25 ksi (172 MPa), Fnt = 45 ksi
-  (310 MPa), phi = 0.75 (AISC 360-22 Appendix 5, Table A-5.3.1, from memory).
+The resistance of one rivet follows the family (``core.checks.aashto_rivets``,
+``core.checks.aisc_rivets``, ``core.checks.en1993_rivets``); here are the plies it passes
+through (:class:`Ply`), the choice of the governing mode, and the line geometry.
+
 - Force per rivet from the shear flow q: F = q gap / n_lines, gap the longest distance
   between consecutive effective rivets of a line. Where the rivets at an end of a line are
   lost, the last effective rivet serves the uncovered end stretch too: use
@@ -25,50 +23,22 @@ from typing import Literal
 from core.checks._inputs import Number, internal, length, stress
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
 from core.errors import InputError
-from core.units import to_internal
 
 RivetState = Literal["sound", "loose", "missing", "headless"]
 RIVET_STATES: tuple[str, ...] = ("sound", "loose", "missing", "headless")
-A502_SOURCE = "AISC 360-22 Appendix 5, Table A-5.3.1 (from memory)"
-BEARING_SOURCE = "AASHTO LRFD 6.13.2.9, Rn = 2.4 d t Fu (from memory)"
-
-
-@dataclass(frozen=True)
-class RivetMaterial:
-    """Rivet steel: nominal shear and tension stresses (MPa) and the resistance factor."""
-
-    name: str
-    Fnv: float
-    Fnt: float
-    phi: float = 0.75
-    source: str = ENGINEER
-
-    def __post_init__(self) -> None:
-        w = f"rivet material {self.name!r}"
-        object.__setattr__(self, "Fnv", stress(self.Fnv, "Fnv", where=w, high=1000.0))
-        object.__setattr__(self, "Fnt", stress(self.Fnt, "Fnt", where=w, high=1500.0))
-        phi = internal(self.phi, "dimensionless", "phi", where=w, low=0.0, high=1.0)
-        object.__setattr__(self, "phi", phi)
-
-
-#: default for rivets of unknown grade
-A502_GRADE_1 = RivetMaterial(
-    "ASTM A502 Grade 1",
-    Fnv=to_internal(25.0, "ksi", "stress"),
-    Fnt=to_internal(45.0, "ksi", "stress"),
-    phi=0.75,
-    source=A502_SOURCE,
-)
 
 
 @dataclass(frozen=True)
 class Ply:
-    """A plate the rivet passes through: measured thickness t (mm), Fu (MPa), force share."""
+    """A plate the rivet passes through: measured thickness t (mm), Fu (MPa), the share of
+    the rivet force it bears, and its edge distance e2 (mm) perpendicular to the force
+    (None when unknown)."""
 
     name: str
     t: float
     Fu: float
     share: float = 1.0
+    e2: float | None = None
 
     def __post_init__(self) -> None:
         w = f"ply {self.name!r}"
@@ -76,83 +46,124 @@ class Ply:
         object.__setattr__(self, "Fu", stress(self.Fu, "Fu", where=w))
         s = internal(self.share, "dimensionless", "share", where=w, low=0.0, high=1.0)
         object.__setattr__(self, "share", s)
+        if self.e2 is not None:
+            object.__setattr__(self, "e2", length(self.e2, "e2", where=w))
 
 
-def rivet_resistance(
-    *,
-    d: Number,
-    m: int,
-    plies: Sequence[Ply],
-    material: RivetMaterial = A502_GRADE_1,
-    phi_bearing: float = 0.75,
-    where: str = "",
-) -> CapacityResult:
-    """Resistance of one rivet: the smaller of shear and bearing on each ply (factored).
+@dataclass(frozen=True)
+class RivetGeometry:
+    """Diameters and shear planes of one rivet, checked once for every family.
 
-    Args:
-        d: nominal rivet diameter, mm. m: number of shear planes (1 to 4).
-        plies: the plies the rivet passes through, with measured thickness.
-        material: rivet steel (default ASTM A502 Grade 1).
-        phi_bearing: resistance factor for bearing (default 0.75, AISC 360-22 J3;
-            AASHTO LRFD 6.5.4.2 gives 0.80 for bearing on material; from memory).
-        where: location for error messages.
+    Attributes:
+        d: nominal rivet (shank) diameter, mm. d0: hole diameter, mm (>= d).
+        m: shear planes (1 to 4). pitch: nominal spacing along the line, mm.
+    """
 
-    Returns:
-        A :class:`CapacityResult` whose ``Rn`` and ``phi`` are those of the governing
-        mode; all modes appear in ``values``.
+    d: float
+    d0: float
+    m: int
+    pitch: float
+
+    @classmethod
+    def of(cls, d: Number, d0: Number | None, m: int, pitch: Number, where: str = ""):
+        """Validated geometry.
+
+        Raises:
+            InputError: a diameter or pitch out of range, d0 < d, m not 1 to 4.
+        """
+        dv = length(d, "d", where=where)
+        d0v = dv if d0 is None else length(d0, "d0", where=where)
+        if d0v < dv:
+            raise InputError(f"hole diameter d0 = {d0v:g} mm is below d = {dv:g} mm", where=where)
+        if isinstance(m, bool) or not isinstance(m, int) or not 1 <= m <= 4:
+            raise InputError(
+                f"m = {m!r} shear planes is outside the allowed range (1 to 4)", where=where
+            )
+        return cls(dv, d0v, m, length(pitch, "pitch", where=where))
+
+
+def check_plies(plies: Sequence[Ply], where: str = "") -> tuple[Ply, ...]:
+    """The plies as a tuple (at least one).
 
     Raises:
-        InputError: d out of range, m not 1 to 4, no plies, or a ply out of range.
+        InputError: no plies.
     """
-    d = length(d, "d", where=where)
-    if isinstance(m, bool) or not isinstance(m, int) or not 1 <= m <= 4:
-        raise InputError(
-            f"m = {m!r} shear planes is outside the allowed range (1 to 4)", where=where
-        )
-    plies = tuple(plies)
-    if not plies:
+    out = tuple(plies)
+    if not out:
         raise InputError("at least one ply is needed for the bearing check", where=where)
-    phi_b = internal(phi_bearing, "dimensionless", "phi_bearing", where=where, low=0.0, high=1.0)
-    Ab = math.pi * d**2 / 4.0
-    Rv = m * Ab * material.Fnv
-    vals = [
-        CheckValue("d", d, "length", "nominal rivet diameter", ENGINEER),
-        CheckValue("m", m, "dimensionless", "shear planes", ENGINEER),
-        CheckValue("Ab", Ab, "area", "nominal body area pi d²/4", "AISC 360-22 J3.7"),
-        CheckValue(
-            "Fnv", material.Fnv, "stress", f"nominal shear stress, {material.name}", material.source
-        ),
-        CheckValue("Rn,shear", Rv, "force", "shear m Ab Fnv", "AISC 360-22 J3.7"),
-    ]
-    modes: list[tuple[float, float, str]] = [(material.phi * Rv, Rv, "shear")]
-    for p in plies:
-        Rb = 2.4 * d * p.t * p.Fu / p.share
-        vals.append(
-            CheckValue(
-                f"Rn,bearing {p.name}",
-                Rb,
-                "force",
-                f"bearing 2.4 d t Fu / share on {p.name} (t = {p.t:g} mm)",
-                BEARING_SOURCE,
-            )
-        )
-        modes.append((phi_b * Rb, Rb, f"bearing on {p.name}"))
-    _, Rn, gov = min(modes, key=lambda x: x[0])
-    phi = material.phi if gov == "shear" else phi_b
-    notes = [f"governing: {gov}", f"rivet material {material.name} ({material.source})"]
-    if all(p.share == 1.0 for p in plies) and m > 1:
-        notes.append("each ply assumed to bear the whole rivet force (conservative)")
+    return out
+
+
+def governing(
+    modes: list[tuple[float, float, float, str]],
+    *,
+    values: list[CheckValue],
+    notes: list[str],
+    standard: str,
+    edition: str,
+    clause: str,
+) -> CapacityResult:
+    """The rivet result of the mode with the least factored resistance.
+
+    Args:
+        modes: (phi Rn, Rn, phi, name) of every mode (shear, bearing on each ply).
+    """
+    _Rr, Rn, phi, gov = min(modes, key=lambda x: x[0])
     return CapacityResult(
         limit_state=f"rivet ({gov})",
-        standard="AISC 360-22 / AASHTO LRFD",
-        edition="2022 / 9th edition (2020)",
-        clause="Appendix 5 Table A-5.3.1; J3.7; AASHTO 6.13.2.9 (from memory)",
+        standard=standard,
+        edition=edition,
+        clause=clause,
         Rn=Rn,
         phi=phi,
         kind="force",
-        values=tuple(vals),
-        notes=tuple(notes),
+        values=tuple(values),
+        notes=(f"governing: {gov}", *notes),
     )
+
+
+def geometry_values(g: RivetGeometry, area: float, area_words: str, src: str) -> list[CheckValue]:
+    """The rows every rivet result starts with."""
+    return [
+        CheckValue("d", g.d, "length", "nominal rivet diameter", ENGINEER),
+        CheckValue("d0", g.d0, "length", "hole diameter", ENGINEER),
+        CheckValue("m", g.m, "dimensionless", "shear planes", ENGINEER),
+        CheckValue("A", area, "area", area_words, src),
+    ]
+
+
+def circle_area(d: float) -> float:
+    """pi d² / 4, mm²."""
+    return math.pi * d**2 / 4.0
+
+
+def prepared(
+    d: Number, d0: Number | None, m: int, pitch: Number, plies: Sequence[Ply], where: str
+) -> tuple[RivetGeometry, tuple[Ply, ...]]:
+    """The validated geometry and plies of one rivet (see :class:`RivetGeometry`)."""
+    return RivetGeometry.of(d, d0, m, pitch, where), check_plies(plies, where)
+
+
+def body_shear(
+    g: RivetGeometry, Fnv: float, Fnv_source: str, phi: float, src: str
+) -> tuple[list[CheckValue], tuple[float, float, float, str]]:
+    """Shear of a rivet on its nominal body area, Rn = m Ab Fnv: the rows and the mode."""
+    Ab = circle_area(g.d)
+    Rv = g.m * Ab * Fnv
+    vals = geometry_values(g, Ab, "nominal body area pi d²/4", src)
+    vals += [
+        CheckValue("Fnv", Fnv, "stress", "nominal shear stress of the rivet", Fnv_source),
+        CheckValue("Rn,shear", Rv, "force", "shear m Ab Fnv", src),
+        CheckValue("phi", phi, "dimensionless", "resistance factor, rivets in shear", src),
+    ]
+    return vals, (phi * Rv, Rv, phi, "shear")
+
+
+def share_notes(g: RivetGeometry, plies: Sequence[Ply]) -> list[str]:
+    """The note when every ply of a multi-plane rivet is taken to bear the whole force."""
+    if g.m > 1 and all(p.share == 1.0 for p in plies):
+        return ["each ply assumed to bear the whole rivet force (conservative)"]
+    return []
 
 
 def rivet_force(q: Number, gap: Number, n_lines: int = 1, *, where: str = "") -> CheckValue:

@@ -4,15 +4,17 @@ failed build never leaves a partial PDF."""
 
 from __future__ import annotations
 
+import argparse
 import os
 import tempfile
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from pathlib import Path
 
 from reportlab.platypus import PageBreak, Paragraph
 
-from core.assess import Assessment, AssessOptions, assess
+from core.assess import Assessment, AssessOptions, assess, options_from_dict
 from core.checks.flags import Level
+from core.choices import options_for
 from core.errors import InputError
 from core.report import cover, member, notes
 from core.report.page import PageInfo, canvas_maker, document
@@ -51,7 +53,7 @@ def story(
     for m in a.members:
         out.append(PageBreak())
         out += member.member_pages(
-            st, m, survey.member(m.member), problems, src.path, system, width, info
+            st, m, survey.member(m.member), problems, src.path, system, width, info, a.family
         )
     out.append(PageBreak())
     out += notes.assumptions(st, a, system, width)
@@ -72,7 +74,7 @@ def render(
     out = Path(out)
     out.parent.mkdir(parents=True, exist_ok=True)
     size = page_size(system)
-    info = PageInfo(a.survey_id, a.title, src.checksum)
+    info = PageInfo(a.survey_id, a.title, src.checksum, a.family.short if a.family else "")
     fd, tmp = tempfile.mkstemp(prefix=f".{out.name}.", suffix=".tmp", dir=out.parent)
     os.close(fd)
     try:
@@ -93,15 +95,21 @@ def build_report(
     units: str | None = None,
     standard: str | None = None,
     options: AssessOptions | None = None,
+    args: argparse.Namespace | None = None,
 ) -> Report:
     """Validate and assess the survey at ``path`` and write its condition report to ``out``.
+
+    The engineer's choices are those ``asfound assess`` takes: ``args`` (the command line's
+    flags and options file, merged over the survey's own options), else ``options``, else the
+    survey's options; ``standard`` overrides the family of any of them.
 
     Args:
         path: survey file (JSON) or field store.
         out: the PDF to write (replaced only when the new one is complete).
         units: "si" or "us"; None takes the survey's unit system.
-        standard: a key of :data:`core.checks.STANDARDS`; None takes the survey's.
-        options: further assessment options (``standard`` overrides theirs).
+        standard: a family key (``"aashto"``, ``"aisc"``, ``"en1993"``); None keeps the choice.
+        options: assessment options (used when ``args`` is None).
+        args: parsed command line of ``asfound report`` (see :mod:`core.choices`).
 
     Raises:
         SchemaError: the survey fails validation (no PDF is written); InputError: a bad
@@ -110,17 +118,14 @@ def build_report(
     if units not in (None, "si", "us"):
         raise InputError(f"unit system {units!r} is not 'si' or 'us'")
     survey, problems, src = read_source(path)
-    opts = options or AssessOptions()
+    if args is not None:
+        opts = options_for(args, survey)
+    elif options is not None:
+        opts = options
+    else:
+        opts = options_from_dict(survey.survey.options or {}, "survey / options")
     if standard is not None:
-        opts = AssessOptions(
-            standard=standard,
-            depth_basis=opts.depth_basis,
-            thickness_policy=opts.thickness_policy,
-            effective_states=opts.effective_states,
-            gap_window=opts.gap_window,
-            rating=opts.rating,
-            thresholds=opts.thresholds,
-        )
+        opts = replace(opts, standard=standard)
     a = assess(survey, opts, tuple(problems))
     system = units or survey.survey.unit_system
     return render(survey, a, problems, src, out, system)

@@ -10,7 +10,6 @@ from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 
 from core import CAUTION, __version__
 from core.assess.results import Assessment, MemberResult, StationResult
-from core.checks import STANDARDS
 from core.checks.flags import Level
 from core.report.fmt import position, position_label, ratio, rf, system_name
 from core.report.source import Source
@@ -44,17 +43,29 @@ def _gov_value(s: StationResult) -> float:
     g = s.governing
     if g is None:
         return float("inf")
-    return g.RF if g.RF is not None else (g.ratio if g.ratio is not None else float("inf"))
+    if g.rating is not None:
+        return g.rating.badness
+    return g.ratio if g.ratio is not None else float("inf")
 
 
 def lowest(m: MemberResult, attr: str) -> tuple[float | None, str]:
-    """Lowest ratio or RF over the member, and where ("station S1, web shear")."""
+    """Lowest ratio over the member (``attr="ratio"``), or the worst rating
+    (``attr="rating"``: lowest RF, highest D/C or U), and where ("S1, web shear")."""
     best: tuple[float | None, str] = (None, "")
+    key = None
     for s in m.stations:
         for ls in s.limit_states:
-            v = getattr(ls, attr)
-            if v is not None and (best[0] is None or v < best[0]):
-                best = (v, f"{s.station}, {ls.name}")
+            if attr == "rating":
+                if ls.rating is None:
+                    continue
+                v, k = ls.rating.value, ls.rating.badness
+            else:
+                v = getattr(ls, attr)
+                if v is None:
+                    continue
+                k = v
+            if key is None or k < key:
+                best, key = (v, f"{s.station}, {ls.name}"), k
     return best
 
 
@@ -92,7 +103,7 @@ def cover(
     st: Styles, survey: Survey, a: Assessment, src: Source, system: str, width: float
 ) -> list:
     h = survey.survey
-    std = STANDARDS[a.standard]
+    fam = a.family
     out = [
         Paragraph("Condition report", st.subtitle),
         Paragraph(esc(a.title), st.title),
@@ -108,7 +119,14 @@ def cover(
         ("Inspection date(s)", ", ".join(h.dates)),
         ("Inspector", h.inspector),
         ("Year built", "" if h.year_built is None else str(h.year_built)),
-        ("Standard", f"{std.title}, {std.edition} ({std.clause})"),
+        ("Standard family", fam.name),
+        (
+            "Documents",
+            "; ".join(
+                d.label + (" (the family points to it)" if d.pointer else "") for d in fam.documents
+            ),
+        ),
+        ("Measure", f"{fam.measure.name} {fam.measure.symbol}"),
         ("Unit system", system_name(system)),
         (
             "Input",
@@ -158,6 +176,15 @@ def cover(
     )
     out += [v, Spacer(1, 10)]
     out += summary(st, a, system, width)
+    if a.flags:
+        out.append(Spacer(1, 4))
+        out += [
+            Paragraph(
+                f"{level_markup(f.level, bold=False)} {esc(f.message[len(f.level.label) :].lstrip(': '))}",
+                st.small,
+            )
+            for f in a.flags
+        ]
     out += [Spacer(1, 10), cautions(st, width)]
     return out
 
@@ -165,12 +192,14 @@ def cover(
 def summary(st: Styles, a: Assessment, system: str, width: float) -> list:
     """Per member: worst station, its governing limit state, lowest ratio, lowest RF."""
     pu = position_label(system)
+    ms = a.family.measure
+    worst_words = f"{'lowest' if ms.higher_is_better else 'highest'} {ms.symbol}"
     rows = []
     for m in a.members:
         ws = worst_station(m)
         gov = ws.governing if ws else None
         lr, lr_at = lowest(m, "ratio")
-        lf, lf_at = lowest(m, "RF")
+        lf, lf_at = lowest(m, "rating")
         rows.append(
             [
                 m.member,
@@ -182,7 +211,7 @@ def summary(st: Styles, a: Assessment, system: str, width: float) -> list:
             ]
         )
         rows.append(["", "", "", lr_at, lf_at, ""])
-    h = ["member", "worst station", "governing limit state", "lowest ratio", "lowest RF", "level"]
+    h = ["member", "worst station", "governing limit state", "lowest ratio", worst_words, "level"]
     w = [0.1, 0.18, 0.2, 0.16, 0.16, 0.2]
     return [
         caption(st, "Summary per member (ratio = as-found / as-built factored capacity)", system),

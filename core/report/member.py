@@ -6,7 +6,7 @@ from __future__ import annotations
 from reportlab.platypus import CondPageBreak, KeepTogether, Paragraph, Spacer, Table, TableStyle
 
 from core.assess.results import MemberResult, StationResult
-from core.report import findings
+from core.report import findings, rating
 from core.report.drawing import flange_windows, section_drawing
 from core.report.fmt import position, position_label, ratio, rf, system_name, with_unit
 from core.report.page import PageInfo, Tracked
@@ -68,7 +68,9 @@ def _legend(st: Styles) -> Paragraph:
     )
 
 
-def station_sheet(st: Styles, s: StationResult, system: str, width: float, info: PageInfo) -> list:
+def station_sheet(
+    st: Styles, s: StationResult, system: str, width: float, info: PageInfo, sym: str = "RF"
+) -> list:
     """Drawings, stress plot, properties and limit states of one governing station."""
     gov = s.governing
     head = (
@@ -76,7 +78,7 @@ def station_sheet(st: Styles, s: StationResult, system: str, width: float, info:
         f"{s.panel} panel · {level_markup(s.level)}"
     )
     if gov is not None:
-        head += f" · governing: {esc(gov.name)} (ratio {ratio(gov.ratio)}, RF {rf(gov.RF)})"
+        head += f" · governing: {esc(gov.name)} (ratio {ratio(gov.ratio)}, {sym} {rf(gov.measure)})"
     V, v_words = shear_for_plot(s, system)
     h1 = 215.0
     w_sec = width * 0.2
@@ -147,8 +149,8 @@ def station_sheet(st: Styles, s: StationResult, system: str, width: float, info:
                     station_properties(st, s, system, V, half),
                 ],
                 [
-                    caption(st, "Limit states, factored capacity φRn", system),
-                    station_limits(st, s, system, half),
+                    caption(st, "Limit states, factored capacities", system),
+                    station_limits(st, s, system, half, sym),
                 ],
             ]
         ],
@@ -175,8 +177,11 @@ def member_pages(
     system: str,
     width: float,
     info: PageInfo,
+    family=None,
 ) -> list:
     """Every flowable of one member's part of the report."""
+    measure = family.measure if family is not None else None
+    sym = measure.symbol if measure is not None else "RF"
     out = [
         Paragraph(f"Member {esc(m.member)}" + (f" · {esc(m.label)}" if m.label else ""), st.h1),
         Paragraph(
@@ -203,7 +208,7 @@ def member_pages(
         for i, s in enumerate(gov):
             if i:
                 out.append(CondPageBreak(560))
-            out += station_sheet(st, s, system, width, info)
+            out += station_sheet(st, s, system, width, info, sym)
             out.append(Spacer(1, 8))
     if any(ln.positions for ln in m.lines):
         block = [
@@ -231,8 +236,15 @@ def member_pages(
         out.append(caption(st, "Gross section as-found against as-built", system))
         out.append(properties_by_station(st, m, system, width))
         out.append(CondPageBreak(120))
-        out.append(Paragraph("Capacities, ratios and rating factors by station", st.h2))
-        out += capacity_tables(st, m, system, width)
+        out.append(
+            Paragraph(
+                f"Capacities, ratios and {measure.name if measure else 'rating factors'} by station",
+                st.h2,
+            )
+        )
+        out += capacity_tables(st, m, system, width, measure)
+        out += rating.summary(st, m, system, width, measure)
+        out += rating.envelopes(st, m, system, width)
         out.append(CondPageBreak(150))
         out.append(Paragraph("Readings", st.h2))
         notes = {s.id: s.notes for s in member.stations}

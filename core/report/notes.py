@@ -20,7 +20,8 @@ HISTORY_ROWS = 15
 
 
 def check_sources(a: Assessment) -> list[tuple[str, str]]:
-    """(limit state, reference) of every check result of the assessment, each once."""
+    """(limit state, reference) of every check result of the assessment, each once, and the
+    sources of the measure's factors."""
     seen: dict[tuple[str, str], None] = {}
     for m in a.members:
         for s in m.stations:
@@ -30,13 +31,19 @@ def check_sources(a: Assessment) -> list[tuple[str, str]]:
                         seen[(res.limit_state, res.reference)] = None
                 if ls.rating is not None:
                     srcs = {v.source for v in ls.rating.values if "from memory" in v.source}
-                    for src in srcs:
-                        seen[("rating factor", src)] = None
+                    for src in sorted(srcs):
+                        seen[(ls.rating.measure, src)] = None
     return list(seen)
 
 
 def assumptions(st: Styles, a: Assessment, system: str, width: float) -> list:
     out = [Paragraph("Assumptions and sources", st.h1)]
+    out.append(
+        Paragraph(
+            f"Standard family: <b>{esc(a.family.name)}</b>; measure: {esc(a.family.measure.name)} ({esc(a.family.measure.symbol)}). Every factor used is listed below with its source.",
+            st.body,
+        )
+    )
     out.append(
         Paragraph(
             "Every value the assessment used that the engineer should confirm, with its "
@@ -49,7 +56,7 @@ def assumptions(st: Styles, a: Assessment, system: str, width: float) -> list:
     out.append(caption(st, "Assumptions", system))
     out.append(grid(st, ["item", "value", "source"], rows, [width * x for x in (0.25, 0.47, 0.28)]))
     out.append(Spacer(1, 8))
-    out.append(caption(st, f"Clauses of the checks ({a.standard_title} for web shear)", system))
+    out.append(caption(st, f"Clauses of the checks ({a.family.short})", system))
     refs = [[ls, ref] for ls, ref in check_sources(a)]
     out.append(grid(st, ["check", "standard, edition, clause"], refs, [width * 0.3, width * 0.7]))
     return out

@@ -20,6 +20,7 @@ class PageInfo:
     survey_id: str
     title: str
     checksum: str
+    family: str = ""
     pages: int = 0
     #: (kind, page number, (x0, y0, x1, y1) in points from the page's lower left)
     figures: list[tuple[str, int, tuple[float, float, float, float]]] = field(default_factory=list)
@@ -81,6 +82,13 @@ def canvas_maker(info: PageInfo):
                 f"input SHA-256 {info.checksum} · asfound {__version__} condition report · "
                 "an aid to a licensed engineer, not a load rating by itself",
             )
+            if info.family:
+                self.setFillColor(INK)
+                self.drawString(
+                    MARGIN,
+                    y - 17,
+                    _fit(f"standard family: {info.family}", SANS, 6.5, w - 2 * MARGIN),
+                )
             self.restoreState()
 
     return NumberedCanvas

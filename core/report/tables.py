@@ -113,8 +113,8 @@ def _web(sr: StationResult) -> str:
     return max(parts, key=lambda p: p.bounds[3] - p.bounds[1]).id
 
 
-def station_limits(st: Styles, sr: StationResult, system: str, width: float):
-    """The limit states of one station: factored capacities, ratio, rating factor."""
+def station_limits(st: Styles, sr: StationResult, system: str, width: float, sym: str = "RF"):
+    """The limit states of one station: factored capacities, ratio, the family's measure."""
     rows = []
     for ls in sr.limit_states:
         u = unit_label(ls.kind, system)
@@ -124,11 +124,11 @@ def station_limits(st: Styles, sr: StationResult, system: str, width: float):
                 value(ls.C_built, ls.kind, system),
                 value(ls.C_found, ls.kind, system),
                 ratio(ls.ratio),
-                rf(ls.RF),
+                rf(ls.measure),
             ]
         )
     w = [width * 0.37, width * 0.17, width * 0.17, width * 0.13, width * 0.16]
-    h = ["limit state (unit)", "φRn as-built", "φRn as-found", "ratio", "RF"]
+    h = ["limit state (unit)", "factored as-built", "factored as-found", "ratio", sym]
     return grid(st, h, rows, w, range(1, 5))
 
 
@@ -192,15 +192,18 @@ def properties_by_station(st: Styles, m: MemberResult, system: str, width: float
     )
 
 
-def capacity_tables(st: Styles, m: MemberResult, system: str, width: float) -> list:
-    """One table per kind (forces, shear flows, moments): capacity as-built and as-found, ratio, factored demand,
-    rating factor and level of every limit state at every station."""
+def capacity_tables(st: Styles, m: MemberResult, system: str, width: float, measure=None) -> list:
+    """One table per kind (forces, shear flows, moments): capacity as-built and as-found,
+    ratio, factored demand, the family's measure and level of every limit state at every
+    station."""
+    sym = measure.symbol if measure is not None else "RF"
+    mname = measure.name if measure is not None else "rating factor"
     out = []
     pu = position_label(system)
     for kind, title in (
-        ("force", "Web shear: panel resistance and thinnest cut"),
+        ("force", "Web shear: the panel and the local check"),
         ("force_per_length", "Rivet lines: shear flow resistance against the factored shear flow"),
-        ("moment", "Flexure: first yield and tension flange at the holes"),
+        ("moment", "Flexure: flange yield or bending resistance, and the tension flange at holes"),
     ):
         u = unit_label(kind, system)
         rows, rules = [], []
@@ -220,7 +223,7 @@ def capacity_tables(st: Styles, m: MemberResult, system: str, width: float) -> l
                         value(ls.C_found, kind, system),
                         ratio(ls.ratio),
                         value(ls.demand, kind, system),
-                        rf(ls.RF),
+                        rf(ls.measure),
                         level_markup(limit_level(s, ls), bold=False)
                         if ls.C_found is not None
                         else "not applicable (see flags)",
@@ -233,11 +236,11 @@ def capacity_tables(st: Styles, m: MemberResult, system: str, width: float) -> l
             "station",
             f"x ({pu})",
             "limit state",
-            f"φRn as-built ({u})",
-            f"φRn as-found ({u})",
+            f"factored as-built ({u})",
+            f"factored as-found ({u})",
             "ratio",
             f"factored demand ({u})",
-            "RF",
+            sym,
             "level",
         ]
         w = [0.07, 0.06, 0.19, 0.1, 0.1, 0.07, 0.1, 0.07, 0.24]
@@ -245,8 +248,8 @@ def capacity_tables(st: Styles, m: MemberResult, system: str, width: float) -> l
         out.append(
             caption(
                 st,
-                f"{title}; factored capacities φRn, ratio as-found / as-built, "
-                "rating factor RF (– where no loads are given)",
+                f"{title}; factored capacities, ratio as-found / as-built, "
+                f"{mname} {sym} (– where no loads are given)",
                 system,
             )
         )

@@ -1,7 +1,8 @@
 """The survey record: a survey, its members, stations and readings (pydantic v2 models).
 
-The models mirror the interchange document (``asfound.survey`` version 1) one to one, so
-``Survey.model_validate(doc).model_dump(mode="json")`` gives the document back. Values are
+The models mirror the interchange document (``asfound.survey`` version 2) one to one, so
+``Survey.model_validate(doc).model_dump(mode="json")`` gives the document back. A version 1
+document is upgraded on the way in (:mod:`core.survey.docversions`). Values are
 kept **as entered**, each with its unit; the engine objects (mm, N, MPa) come only from the
 accessors :meth:`Member.definition` and :meth:`Station.loss`.
 
@@ -14,17 +15,18 @@ Units of the document:
 from __future__ import annotations
 
 import math
-from typing import Any, Literal
+from typing import Any, Literal, get_args
 
-from pydantic import BaseModel, ConfigDict, Field, PrivateAttr
+from pydantic import BaseModel, ConfigDict, Field, PrivateAttr, model_validator
 
 from core.definition import SectionDefinition, StationLoss
 from core.errors import where as join
 from core.sectionfile import definition_from_dict
+from core.survey import docversions
 from core.units import to_internal
 
 FORMAT = "asfound.survey"
-VERSION = 1
+VERSION = 2
 
 RivetStateName = Literal["sound", "loose", "missing", "headless"]
 RIVET_STATES: tuple[str, ...] = ("sound", "loose", "missing", "headless")
@@ -82,18 +84,77 @@ class Axle(_Model):
 
 
 class SimpleSpan(_Model):
-    """Loads on a simply supported member when no station effects are given.
-
-    ``dc`` and ``dw`` are uniform dead loads (force per length) on this member; ``axles``
-    a train of axle loads (first spacing ignored), ``im`` the dynamic load allowance as a
-    fraction (0.33 for 33 %), ``distribution`` the share of one train carried by the member.
-    """
+    """Uniform dead loads on a simply supported member (force per length) when no station
+    effects are given: ``dc`` components (self-weight included), ``dw`` wearing surface and
+    utilities. The live load is the member's ``live_load`` (version 1 kept an axle train
+    here; it is moved there on reading)."""
 
     dc: Quantity
     dw: Quantity | None = None
-    axles: list[Axle] = Field(default_factory=list)
-    im: float = Field(default=0.0, ge=0.0, le=1.0)
-    distribution: float = Field(default=1.0, gt=0.0, le=4.0)
+
+
+# --- version 2: loads and the structure's system --------------------------------------
+Use = Literal["highway", "railway", "building", "industrial"]
+USES: tuple[str, ...] = ("highway", "railway", "building", "industrial")
+Condition = Literal["good", "fair", "poor"]
+VehicleKind = Literal["legal", "permit", "crane", "other"]
+#: structure types for the system factor (our keys; each family names their rows)
+StructureType = Literal[
+    "welded_two_girder",
+    "riveted_two_girder",
+    "eyebar_truss",
+    "three_girder",
+    "four_girder",
+    "multi_girder",
+    "floorbeam",
+    "stringer",
+]
+STRUCTURE_TYPES: tuple[str, ...] = get_args(StructureType)
+
+
+class Vehicle(_Model):
+    """A vehicle given by the engineer: a legal or permit truck, a crane or another axle
+    train; ``axles`` from the front (the first spacing is ignored), ``im`` the dynamic
+    allowance as a fraction (0.33 for 33 %)."""
+
+    name: str = Field(min_length=1)
+    kind: VehicleKind = "other"
+    axles: list[Axle] = Field(min_length=1)
+    im: float = Field(ge=0.0, le=1.0)
+
+
+class LeverLoad(_Model):
+    """A load of one lane or track for the lever rule: its distance from this girder towards
+    the other (negative on an overhang) and its fraction of the lane or track."""
+
+    offset: Quantity
+    fraction: float = Field(gt=0.0, le=1.0)
+
+
+class LeverRule(_Model):
+    """The lever rule for a two-girder span: spacing of the girders, the loads of one lane
+    or track, and the multiple presence factor (1.0 where the family has none)."""
+
+    spacing: Quantity
+    loads: list[LeverLoad] = Field(min_length=1)
+    multiple_presence: float = Field(default=1.0, gt=0.0, le=2.0)
+
+
+class LiveLoad(_Model):
+    """Live load data of a member: the share of one lane / track / vehicle it carries
+    (``distribution`` with ``distribution_basis``, or ``lever_rule`` to compute it), the
+    engineer's ``vehicles``, and the data of EN 1991-2 Load Model 71 (``alpha``, ``track``
+    maintenance ``careful`` or ``standard``, determinant length ``L_phi``) and Load Model 1
+    (``lane_shares``: the member's share of each notional lane, lane 1 first)."""
+
+    distribution: float | None = Field(default=None, gt=0.0, le=4.0)
+    distribution_basis: str = ""
+    lever_rule: LeverRule | None = None
+    vehicles: list[Vehicle] = Field(default_factory=list)
+    alpha: float | None = Field(default=None, ge=0.75, le=1.46)
+    track: Literal["careful", "standard"] | None = None
+    L_phi: Quantity | None = None
+    lane_shares: list[float] | None = Field(default=None, min_length=1, max_length=6)
 
 
 class RivetRun(_Model):
@@ -219,7 +280,9 @@ class Station(_Model):
 class Member(_Model):
     """A built-up member: its as-built section (a ``core.sectionfile`` section object in
     the survey's length unit), span, stiffener spacing ``do`` (None = unstiffened),
-    rivet states per line, optional simple-span loads, and its stations."""
+    rivet states per line, optional simple-span dead loads and live load data, its
+    condition (for the condition factor) and structure type (for the system factor), and
+    its stations."""
 
     id: str = Field(min_length=1)
     label: str = ""
@@ -228,7 +291,16 @@ class Member(_Model):
     section: dict[str, Any]
     rivets: list[RivetLineStates] = Field(default_factory=list)
     simple_span: SimpleSpan | None = None
+    live_load: LiveLoad | None = None
+    condition: Condition | None = None
+    structure_type: StructureType | None = None
     stations: list[Station] = Field(default_factory=list)
+
+    @model_validator(mode="before")
+    @classmethod
+    def _from_version_1(cls, data: Any) -> Any:
+        """A member written by version 1 (an axle train in ``simple_span``) is upgraded."""
+        return docversions.upgrade_member(data) if isinstance(data, dict) else data
 
     _length_unit: str = PrivateAttr(default="mm")
     _position_unit: str = PrivateAttr(default="m")
@@ -278,7 +350,10 @@ class Member(_Model):
 
 
 class SurveyHeader(_Model):
-    """Who, what, where and when, plus the engineer's choices for the whole survey."""
+    """Who, what, where and when, plus the engineer's choices for the whole survey: the
+    standard family, material or year built, what the structure carries (``use``) and the
+    assessment ``options`` (the same keys as an options file, see
+    :mod:`core.assess.options`)."""
 
     id: str = Field(min_length=1)
     title: str = ""
@@ -293,16 +368,26 @@ class SurveyHeader(_Model):
     year_built: int | None = None
     length_unit: str = "mm"
     position_unit: str = "m"
+    use: Use | None = None
+    options: dict[str, Any] | None = None
 
 
 class Survey(_Model):
-    """The whole survey document (format ``asfound.survey``, version 1)."""
+    """The whole survey document (format ``asfound.survey``, version 2)."""
 
     format: Literal["asfound.survey"] = FORMAT
-    version: Literal[1] = VERSION
+    version: Literal[2] = VERSION
     note: str = ""
     survey: SurveyHeader
     members: list[Member] = Field(default_factory=list)
+
+    @model_validator(mode="before")
+    @classmethod
+    def _from_version_1(cls, data: Any) -> Any:
+        """A version 1 document is upgraded to version 2 (:func:`docversions.upgrade`)."""
+        if isinstance(data, dict) and data.get("version") == 1:
+            return docversions.upgrade(data)
+        return data
 
     def model_post_init(self, __context: Any) -> None:
         for m in self.members:

@@ -30,7 +30,7 @@ from typing import Any
 from core.definition import SectionDefinition
 from core.errors import InputError, StoreError
 from core.survey.migrations import CURRENT, STORE_FORMAT, V2_SCHEMA, migrate
-from core.survey.model import Member, Station, Survey, SurveyHeader
+from core.survey.model import VERSION, Member, Station, Survey, SurveyHeader
 from core.survey.problems import Problem
 from core.survey.storeops import StoreOps, _validated
 
@@ -333,7 +333,7 @@ class FieldStore(StoreOps):
                 members.append({**m, "stations": stations})
             doc = {
                 "format": "asfound.survey",
-                "version": 1,
+                "version": VERSION,
                 "note": json.loads(self._meta("note")),
                 "survey": json.loads(self._meta("survey")),
                 "members": members,

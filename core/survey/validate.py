@@ -1,7 +1,8 @@
 """Validation of a survey: every problem at once, each with its place.
 
-Two stages. The structure of the document is checked against the published JSON Schema
-(``core/schema/survey-1.schema.json``) and the model; an item that fails (a reading with a
+Two stages. The structure of the document is checked against the published JSON Schema of
+its version (``core/schema/survey-2.schema.json``; a version 1 file against
+``survey-1.schema.json``, then upgraded, :mod:`core.survey.docversions`) and the model; an item that fails (a reading with a
 text value, say) is reported and set aside so that the rest can still be checked. Then the
 meaning is checked: part ids, positions within the member, perforations within their plate,
 thickness ranges, units, and the plausibility warnings of :mod:`core.survey.readings`.
@@ -22,21 +23,23 @@ from pydantic import ValidationError
 from core.definition import SectionDefinition
 from core.errors import AsfoundError
 from core.errors import where as join
+from core.survey import docversions
 from core.survey.checkitems import _kind, check_cut, check_reading
 from core.survey.model import FORMAT, VERSION, Member, Station, Survey
 from core.survey.problems import Problem
 from core.survey.readings import region_stats
 from core.units import to_internal
 
-SCHEMA_PATH = Path(__file__).resolve().parent.parent / "schema" / "survey-1.schema.json"
+SCHEMA_DIR = Path(__file__).resolve().parent.parent / "schema"
+SCHEMA_PATH = SCHEMA_DIR / f"survey-{VERSION}.schema.json"
 
 _MAX_SPAN_MM = 300_000.0
 
 
-@lru_cache(maxsize=1)
-def schema() -> dict:
-    """The JSON Schema (draft 2020-12) of the survey document, version 1."""
-    return json.loads(SCHEMA_PATH.read_text(encoding="utf-8"))
+@lru_cache(maxsize=4)
+def schema(version: int = VERSION) -> dict:
+    """The JSON Schema (draft 2020-12) of the survey document of ``version`` (1 or 2)."""
+    return json.loads((SCHEMA_DIR / f"survey-{version}.schema.json").read_text(encoding="utf-8"))
 
 
 def place_of(doc: Any, path: tuple | list) -> str:
@@ -97,13 +100,24 @@ def check_document(doc: Any, where: str = "") -> tuple[Survey | None, list[Probl
         msg = f"version {ver} is newer than this asfound reads (1 to {VERSION}); update asfound"
         return None, [Problem("error", msg, where)]
     work = copy.deepcopy(doc)
-    validator = jsonschema.Draft202012Validator(schema())
+    validator = jsonschema.Draft202012Validator(schema(ver))
     errs = sorted(validator.iter_errors(work), key=lambda e: list(map(str, e.absolute_path)))
     for e in errs:
         path = tuple(e.absolute_path)
         probs.append(Problem("error", e.message, join(where, place_of(doc, path))))
     model: Survey | None = None
     if not errs or _prune(work, [tuple(e.absolute_path) for e in errs]):
+        if ver < VERSION:
+            moved = docversions.trains_moved(work)
+            work = docversions.upgrade(work)
+            msg = f"a version {ver} file, read as version {VERSION}"
+            if moved:
+                msg += (
+                    f"; the axle train of member(s) {', '.join(map(repr, moved))} is now a "
+                    f"vehicle ({docversions.V1_TRAIN!r}) of the member's live load, and the "
+                    "family's own live load model gives the design load"
+                )
+            probs.append(Problem("note", msg, where))
         for _ in range(10):
             try:
                 model = Survey.model_validate(work)
@@ -166,6 +180,13 @@ def check_survey(s: Survey, where: str = "") -> list[Problem]:
             join(w, "year_built"),
             probs,
         )
+    if h.options is not None:
+        from core.assess.options import options_from_dict
+
+        try:
+            options_from_dict(h.options)
+        except AsfoundError as e:
+            probs.append(Problem("error", f"options: {e}", join(w, "options")))
     if h.material is None and h.year_built is None:
         probs.append(
             Problem("warning", "neither material nor year built given: set Fy before assessment", w)
@@ -240,8 +261,23 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
         _kind(ss.dc.value, ss.dc.unit, "force_per_length", join(ws, "dc"), probs)
         if ss.dw is not None:
             _kind(ss.dw.value, ss.dw.unit, "force_per_length", join(ws, "dw"), probs)
-        for i, a in enumerate(ss.axles, start=1):
-            wa = join(ws, f"axle #{i}")
+    if m.live_load is not None:
+        probs += check_live_load(m, w)
+    probs += _dupes([s.id for s in m.stations], "station", w)
+    for st in m.stations:
+        probs += check_station(m, defn, st, L, where)
+    return probs
+
+
+def check_live_load(m: Member, w: str) -> list[Problem]:
+    """Units and ranges of a member's live load data (vehicles, lever rule, L_phi)."""
+    probs: list[Problem] = []
+    ll, wl = m.live_load, join(w, "live_load")
+    assert ll is not None
+    for v in ll.vehicles:
+        wv = join(wl, f"vehicle {v.name!r}")
+        for i, a in enumerate(v.axles, start=1):
+            wa = join(wv, f"axle #{i}")
             _range(
                 _kind(a.load.value, a.load.unit, "force", wa, probs),
                 0.0,
@@ -251,18 +287,17 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
                 wa,
                 probs,
             )
-            _range(
-                _kind(a.spacing.value, a.spacing.unit, "length", wa, probs),
-                0.0,
-                1e5,
-                "spacing",
-                "mm",
-                wa,
-                probs,
-            )
-    probs += _dupes([s.id for s in m.stations], "station", w)
-    for st in m.stations:
-        probs += check_station(m, defn, st, L, where)
+            sp = _kind(a.spacing.value, a.spacing.unit, "length", wa, probs)
+            _range(sp if i > 1 else None, 0.0, 1e5, "spacing", "mm", wa, probs)
+    if ll.lever_rule is not None:
+        lr = ll.lever_rule
+        S = _kind(lr.spacing.value, lr.spacing.unit, "length", join(wl, "lever_rule"), probs)
+        _range(S, 100.0, 1e5, "girder spacing", "mm", join(wl, "lever_rule"), probs)
+        for ld in lr.loads:
+            _kind(ld.offset.value, ld.offset.unit, "length", join(wl, "lever_rule"), probs)
+    if ll.L_phi is not None:
+        Lp = _kind(ll.L_phi.value, ll.L_phi.unit, "length", join(wl, "L_phi"), probs)
+        _range(Lp, 100.0, _MAX_SPAN_MM, "L_phi", "mm", join(wl, "L_phi"), probs)
     return probs
 
 

@@ -22,7 +22,8 @@ class ResultsScreen(Screen):
         ids = self.ids
         table = ids.table
         table.clear_widgets()
-        for h in HEAD:
+        head = (*HEAD[:-1], result.measure_symbol if result is not None else HEAD[-1])
+        for h in head:
             table.add_widget(Factory.Cell(text=h, bold=True, color=(0.3, 0.3, 0.34, 1)))
         if s is None:
             return

@@ -14,7 +14,7 @@ from tests.assess.helpers import sample_doc, survey
 
 
 def test_unknown_standard() -> None:
-    with pytest.raises(InputError, match=r"unknown standard 'bs5400'; known standards: \['aashto'"):
+    with pytest.raises(InputError, match=r"standard family 'bs5400' is not one of \['aashto'"):
         AssessOptions(standard="bs5400")
 
 
@@ -24,11 +24,20 @@ def test_unknown_standard_on_the_command_line(capsys) -> None:
     assert "invalid choice: 'bs5400'" in capsys.readouterr().err
 
 
+def _loads(V_dc=104.0, V_dw=29.2, V_ll=520.5) -> dict:
+    """Station loads (the engineer's numbers; invented)."""
+    q = lambda v, u: {"value": v, "unit": u}  # noqa: E731
+    return {
+        "DC": {"V": q(V_dc, "kN"), "M": q(310.0, "kN*m")},
+        "DW": {"V": q(V_dw, "kN"), "M": q(87.2, "kN*m")},
+        "LL_IM": {"V": q(V_ll, "kN"), "M": q(1511.2, "kN*m")},
+    }
+
+
 def test_dead_loads_of_opposite_sign() -> None:
     d = copy.deepcopy(sample_doc())
     st = d["members"][0]["stations"][2]
-    st["loads"]["DC"]["V"] = {"value": 120.0, "unit": "kN"}
-    st["loads"]["DW"]["V"] = {"value": -30.0, "unit": "kN"}
+    st["loads"] = _loads(120.0, -30.0)
     with pytest.raises(
         InputError, match=r"station 'S3'.*opposite sign.*DC V = 120 kN, DW V = -30 kN"
     ):
@@ -37,6 +46,7 @@ def test_dead_loads_of_opposite_sign() -> None:
 
 def test_load_in_the_wrong_unit() -> None:
     d = copy.deepcopy(sample_doc())
+    d["members"][0]["stations"][1]["loads"] = _loads()
     d["members"][0]["stations"][1]["loads"]["LL_IM"]["V"] = {"value": 500.0, "unit": "kN*m"}
     with pytest.raises(
         UnitError, match=r"station 'S2' / loads / LL / V.*'kN\*m' is not a force unit"
@@ -61,7 +71,10 @@ def test_bad_thresholds_and_states() -> None:
 def test_assess_json_is_stable(tmp_path, capsys) -> None:
     assert main(["assess", "survey_samples/through-girder-us.json", "--json"]) == 0
     doc = json.loads(capsys.readouterr().out)
-    assert doc["format"] == "asfound.assessment" and doc["version"] == 1
+    assert doc["format"] == "asfound.assessment" and doc["version"] == 2
+    assert doc["family"]["key"] == "aashto" and doc["family"]["measure"]["symbol"] == "RF"
+    syms = {f["symbol"] for f in doc["family"]["factors"]}
+    assert {"phi_v", "phi_f", "gDC", "gDW", "gLL", "IM"} <= syms
     assert doc["unit_system"] == "us"
     s = doc["members"][0]["stations"][0]
     assert set(s) >= {"station", "x", "limit_states", "governing", "level", "flags", "properties"}

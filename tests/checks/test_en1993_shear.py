@@ -2,17 +2,22 @@
 
 Source: EN 1993-1-5:2006, 5.2 (Eq. 5.1, 5.2), 5.3 (Eq. 5.3, 5.5, 5.6), Table 5.1, Annex A.1
 and A.3 (clause numbers from memory); hand calculation from the clause. fyw = 355 MPa,
-t = 10 mm, eta = 1.2 (5.1(2) recommended for S355), gamma_M1 = 1.0 unless stated.
+t = 10 mm, eta = 1.2 (5.1(2) recommended for S355), gamma_M1 = 1.0 unless stated: the
+clause takes both as the family's parameters (the EN 1993 family passes gamma_M1 = 1.10 and
+eta = 1.0 for early steel; tests/families check that).
 """
 
+import functools
 import math
 
 import pytest
 
-from core.checks.en1993_shear import chi_w_for, eta_for, k_tau_for, web_shear
+from core.checks import en1993_shear
+from core.checks.en1993_shear import chi_w_for, k_tau_for
 from core.errors import InputError
 
 FY = 355.0
+web_shear = functools.partial(en1993_shear.web_shear, eta=1.2, gamma_M1=1.0)
 
 
 def test_k_tau_annex_A3():
@@ -21,11 +26,6 @@ def test_k_tau_annex_A3():
     assert k_tau_for(1.0) == pytest.approx(9.34)
     assert k_tau_for(2.0) == pytest.approx(6.34)
     assert k_tau_for(0.5) == pytest.approx(25.36)
-
-
-def test_eta():
-    # 5.1(2) Note: 1.20 up to S460, 1.00 above (recommended values)
-    assert eta_for(355) == 1.2 and eta_for(460) == 1.2 and eta_for(690) == 1.0
 
 
 def test_chi_w_equal_eta_stocky_web():
@@ -87,14 +87,14 @@ def test_stiffened_panels_both_aspect_forms():
     assert r.value("chi_w").value == pytest.approx(0.848224, rel=1e-5)
 
 
-def test_eta_one_above_S460():
-    # fyw = 500 -> eta = 1.0, threshold 0.83/eta = 0.83
+def test_eta_one():
+    # eta = 1.0 (above S460, or steel of unknown grade): threshold 0.83/eta = 0.83
     # hw = 500: lambda_w = 0.76 sqrt(500 / (5.34*190000/2500)) = 0.843570 -> chi_w = 0.983913
-    r = web_shear(fyw=500, hw=500, t=10)
+    r = web_shear(fyw=500, hw=500, t=10, eta=1.0)
     assert r.value("eta").value == 1.0
     assert r.value("chi_w").value == pytest.approx(0.83 / 0.843570, rel=1e-5)
     # hw = 480: lambda_w = 0.80983 < 0.83 -> chi_w = eta = 1.0
-    assert web_shear(fyw=500, hw=480, t=10).value("chi_w").value == 1.0
+    assert web_shear(fyw=500, hw=480, t=10, eta=1.0).value("chi_w").value == 1.0
 
 
 def test_chi_w_for_boundaries():
@@ -104,13 +104,19 @@ def test_chi_w_for_boundaries():
     assert chi_w_for(1.08, 1.2, "non-rigid")[0] == pytest.approx(0.83 / 1.08)
 
 
-def test_gamma_M1_and_notes():
+def test_gamma_M1_and_flange_contribution():
+    # gamma_M1 = 1.10 for bridges (EN 1993-2 Table 6.1, from memory): phi = 1/1.1
     r = web_shear(fyw=FY, hw=1500, t=10, gamma_M1=1.1)
     assert r.phi == pytest.approx(1 / 1.1)
     assert r.Vr == pytest.approx(r.Vn / 1.1)
     d = web_shear(fyw=FY, hw=1500, t=10)
-    assert any("National Annex" in n for n in d.notes)
-    assert any("flange contribution" in n for n in d.notes)
+    assert any("flange contribution Vbf,Rd (5.4) not counted" in n for n in d.notes)
+    # Eq. 5.1: Vb,Rd = Vbw,Rd + Vbf,Rd, capped at eta fyw hw t / (sqrt(3) gamma_M1)
+    non = web_shear(fyw=FY, hw=1500, t=10, gamma_M1=1.1)
+    w = web_shear(fyw=FY, hw=1500, t=10, gamma_M1=1.1, Vbf_Rd=100_000.0)
+    assert w.Vr == pytest.approx(non.Vr + 100_000.0)
+    cap = 1.2 * FY * 1500 * 10 / math.sqrt(3) / 1.1
+    assert web_shear(fyw=FY, hw=1500, t=10, gamma_M1=1.1, Vbf_Rd=5e6).Vr == pytest.approx(cap)
 
 
 def test_bad_input():

@@ -63,9 +63,16 @@ def test_rivet_line_flags():
 
 
 def test_utilisation_and_not_applicable():
-    assert flag_utilisation("rivet", 1.2, 1.0).level == Level.URGENT
-    assert flag_utilisation("rivet", 1.0, 1.0).level == Level.REVIEW
-    assert flag_utilisation("rivet", 0.5, 1.0).level == Level.OK
+    # demand / capacity: above 1.0 urgent, above 0.9 review, above 0.75 watch (asfound
+    # defaults, common practice, no source); exactly 1.0 is not above the limit
+    assert flag_utilisation("rivet", 1.2).level == Level.URGENT
+    assert flag_utilisation("rivet", 1.0).level == Level.REVIEW
+    assert flag_utilisation("rivet", 0.8).level == Level.WATCH
+    assert flag_utilisation("rivet", 0.5).level == Level.OK
+    f = flag_utilisation("rivet", 1.05, what="demand / capacity")
+    assert (
+        "demand / capacity 1.05 is above the 'needs immediate attention' threshold 1" in f.message
+    )
     f = flag_not_applicable("station 7", "web perforated")
     assert f.level == Level.REVIEW and "web perforated" in f.message
     assert worst([]) == Level.OK

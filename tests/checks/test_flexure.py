@@ -1,27 +1,50 @@
-"""Flexure: My = Fy S (first yield, elastic beam theory, common practice) and the tension
-flange at holes, AASHTO LRFD 6.10.1.8-1 ft <= 0.84 (An/Ag) Fu <= Fyt (from memory);
-hand calculation from the clause."""
+"""Flexure of the AASHTO family: flange yield Fn = Rb Rh Fyf (AASHTO LRFD 9th ed. 2020,
+6.10.8.1.1 and 6.10.8.3), the web load-shedding factor Rb (6.10.1.10.2) and the tension
+flange at holes, 6.10.1.8-1 ft <= 0.84 (An/Ag) Fu <= Fyt; all from memory; hand
+calculations from the clauses."""
+
+import math
 
 import pytest
 
-from core.checks.flexure import net_area_ratio, tension_flange_net_section, yield_moment
+from core.checks.flexure import (
+    flange_yield,
+    load_shedding_Rb,
+    net_area_ratio,
+    tension_flange_net_section,
+)
 from core.errors import InputError
 
 
-def test_yield_moment_smaller_fibre_governs():
-    # My,top = 250 * 4.0e6 = 1.0e9 N·mm; My,bottom = 250 * 3.2e6 = 8.0e8 N·mm -> bottom
-    r = yield_moment(Fy=250, S_top=4.0e6, S_bottom=3.2e6)
-    assert r.value("My,top").value == pytest.approx(1.0e9)
+def test_flange_yield_smaller_fibre_governs():
+    # Mn,c = 1 * 1 * 250 * 4.0e6 = 1.0e9 N·mm; Mn,t = 250 * 3.2e6 = 8.0e8 N·mm -> tension
+    r = flange_yield(Fyc=250, Fyt=250, S_c=4.0e6, S_t=3.2e6, phi_f=1.0)
+    assert r.value("Mn,c").value == pytest.approx(1.0e9)
     assert r.Rn == pytest.approx(8.0e8) and r.kind == "moment"
-    assert "bottom" in r.notes[0]
+    assert "tension" in r.notes[0]
+    # with Rb = 0.9 the compression flange: 0.9 * 1.0e9 = 9.0e8 > 8.0e8, tension still governs
+    assert flange_yield(Fyc=250, Fyt=250, S_c=4.0e6, S_t=3.2e6, Rb=0.9, phi_f=1.0).Rn == 8.0e8
 
 
 def test_as_built_and_as_found_are_two_calls():
-    built = yield_moment(Fy="36 ksi", S_top="504 in**3", S_bottom="504 in**3")
-    found = yield_moment(Fy="36 ksi", S_top="504 in**3", S_bottom="430 in**3")
+    built = flange_yield(Fyc="36 ksi", Fyt="36 ksi", S_c="504 in**3", S_t="504 in**3", phi_f=1.0)
+    found = flange_yield(Fyc="36 ksi", Fyt="36 ksi", S_c="504 in**3", S_t="430 in**3", phi_f=1.0)
     # 36 ksi * 504 in³ = 18 144 kip·in; ratio 430/504 (hand calculation)
     assert built.Rn == pytest.approx(18_144 * 112_984.829, rel=1e-6)
     assert found.Rn / built.Rn == pytest.approx(430 / 504)
+
+
+def test_load_shedding_Rb():
+    # Dc = 800, tw = 8, bfc tfc = 10 000 mm², E = 200 000, Fyc = 250:
+    # lambda_rw = 5.7 sqrt(800) = 161.22; 2Dc/tw = 200 > lambda_rw
+    # a_wc = 2 * 800 * 8 / 10000 = 1.28; Rb = 1 - 1.28/(1200 + 384) (200 - 161.22) = 0.96867
+    Rb, vals = load_shedding_Rb(Dc=800, tw=8, bfc_tfc=10_000, E=200_000, Fyc=250)
+    lam = 5.7 * math.sqrt(800.0)
+    assert Rb == pytest.approx(1 - 1.28 / 1584 * (200 - lam), rel=1e-12)
+    assert Rb == pytest.approx(0.96867, abs=1e-5)
+    # a stocky web sheds nothing: 2 * 400 / 8 = 100 < 161.2 -> Rb = 1
+    assert load_shedding_Rb(Dc=400, tw=8, bfc_tfc=10_000, E=200_000, Fyc=250)[0] == 1.0
+    assert {v.symbol for v in vals} >= {"Rb", "lambda_rw", "a_wc"}
 
 
 def test_net_section_fracture_governs():
@@ -41,7 +64,7 @@ def test_yield_governs_with_few_holes():
 def test_bad_input():
     with pytest.raises(InputError, match="exceeds gross area"):
         net_area_ratio(11000, 10000)
-    with pytest.raises(InputError, match="S_bottom = 0"):
-        yield_moment(Fy=250, S_top=1e6, S_bottom=0)
+    with pytest.raises(InputError, match="S_t = 0"):
+        flange_yield(Fyc=250, Fyt=250, S_c=1e6, S_t=0, phi_f=1.0)
     with pytest.raises(InputError, match="Fu = 200 MPa is below Fyt"):
         tension_flange_net_section(An=8000, Ag=10000, Fu=200, Fyt=250)

@@ -44,6 +44,7 @@ def test_every_page_has_number_identity_and_checksum(si):
         assert f"page {i} of {rep.pages}" in text
         assert a.survey_id in text and a.title in text
         assert f"SHA-256 {rep.checksum}" in text
+        assert f"standard family: {a.family.short}" in text
 
 
 def test_checksum_is_sha256_of_the_input_bytes(si):
@@ -73,7 +74,7 @@ def test_ratios_and_rating_factors_of_every_limit_state(si):
                 row = (
                     f"{ls.name} {value(ls.C_built, ls.kind, 'si')} "
                     f"{value(ls.C_found, ls.kind, 'si')} {ratio(ls.ratio)} "
-                    f"{value(ls.demand, ls.kind, 'si')} {rf(ls.RF)}"
+                    f"{value(ls.demand, ls.kind, 'si')} {rf(ls.measure)}"
                 )
                 assert row in text, (s.station, row)
 

@@ -63,8 +63,8 @@ def test_truncated_file_is_refused(tmp_path):
 
 def test_newer_version_is_refused(tmp_path):
     doc = document()
-    doc["version"] = 2
-    msg = _refused(tmp_path, write(tmp_path / "v2.json", doc), "version 2 is newer")
+    doc["version"] = 3
+    msg = _refused(tmp_path, write(tmp_path / "v3.json", doc), "version 3 is newer")
     assert "update asfound" in msg
 
 

@@ -35,10 +35,18 @@ def test_samples_have_the_promised_content():
         states = {st for r in m.rivets for _, st in r.expanded()}
         assert {"missing", "loose"} <= states
         assert len(m.rivets) == lines
+    # version 2: the SI sample is a railway girder (LM71 data, lever rule), the US sample a
+    # highway through girder (lever rule, one legal vehicle), both with dead loads
     si, _ = check_file(SI_SAMPLE)
-    assert all(s.loads is not None for s in si.members[0].stations)
+    assert si.version == 2 and si.survey.use == "railway"
+    g1 = si.members[0]
+    assert g1.simple_span is not None and g1.live_load.lever_rule is not None
+    assert g1.live_load.alpha == 1.0 and g1.live_load.track == "standard"
     us, _ = check_file(US_SAMPLE)
-    assert us.members[0].simple_span is not None and len(us.members[0].simple_span.axles) == 3
+    ng = us.members[0]
+    assert us.survey.use == "highway" and ng.structure_type == "riveted_two_girder"
+    assert [v.kind for v in ng.live_load.vehicles] == ["legal"]
+    assert len(ng.live_load.vehicles[0].axles) == 3
 
 
 def test_mistakes_file_lists_every_mistake():
@@ -164,9 +172,9 @@ def test_material_out_of_range_and_missing_material_warning():
 
 def test_newer_version_and_wrong_format():
     doc = document()
-    doc["version"] = 2
+    doc["version"] = 3
     m, probs = _check(doc)
-    assert m is None and "version 2 is newer than this asfound reads" in probs[0].message
+    assert m is None and "version 3 is newer than this asfound reads" in probs[0].message
     m, probs = _check({"format": "something.else"})
     assert m is None and "not an asfound survey" in probs[0].message
 
