@@ -69,3 +69,76 @@ def test_sigkill_never_loses_a_saved_entry(tmp_path):
     assert conn.execute("PRAGMA integrity_check").fetchone()[0] == "ok"
     conn.close()
     assert len(reported) >= rounds >= 3
+
+
+UNDOER = """
+import sys
+from core.survey.store import FieldStore
+store = FieldStore.open(sys.argv[1], device="tablet-K")
+n = 0
+while True:
+    n += 1
+    saved = store.add_reading("G1", "S1", {"part": "web", "value": 8.0 + (n % 7) / 10,
+                                           "unit": "mm"}, "kim")
+    print("add", saved.id, flush=True)
+    if n % 2 == 0:
+        rows = store.undo_last("kim")
+        print("undo", rows[0].entity, flush=True)
+"""
+
+
+def check_undo_consistency(path) -> set[str]:
+    """The history and the entries agree: every undone change has exactly one undo change
+    that names it, and the live readings are the added ones not undone. Returns them."""
+    with FieldStore.open(path, device="checker") as st:
+        hist = st.history()
+        live = {r.id for r in st.to_survey().members[0].stations[0].readings}
+    undone = {h.change for h in hist if h.undone}
+    undos: dict[int, set[int]] = {}
+    for h in hist:
+        if h.action == "undo":
+            undos.setdefault(h.undoes, set()).add(h.change)
+    assert set(undos) == undone and all(len(v) == 1 for v in undos.values())
+    added = {h.entity for h in hist if h.kind == "reading" and h.action == "add" and not h.undone}
+    assert live == added
+    return live
+
+
+@pytest.mark.skipif(not hasattr(signal, "SIGKILL"), reason="needs SIGKILL")
+def test_sigkill_during_undo_keeps_the_store_consistent(tmp_path):
+    path = tmp_path / "undo.asf"
+    s = FieldStore.create(path, header(), device="office")
+    s.add_member(document()["members"][0], "setup")
+    s.close()
+    rng = random.Random(11)
+    env = dict(os.environ, PYTHONPATH=str(ROOT))
+    added: set[str] = set()
+    undone: set[str] = set()
+    t0, rounds = time.monotonic(), 0
+    while rounds < 3 or (rounds < ROUNDS and time.monotonic() - t0 < BUDGET_S):
+        rounds += 1
+        child = subprocess.Popen(
+            [sys.executable, "-c", UNDOER, str(path)],
+            stdout=subprocess.PIPE,
+            stderr=subprocess.PIPE,
+            env=env,
+        )
+        first = child.stdout.readline()
+        if not first:
+            child.kill()
+            pytest.fail(f"round {rounds}: undoer gave nothing: {child.communicate()[1].decode()}")
+        time.sleep(rng.uniform(0.0, 0.25))
+        child.send_signal(signal.SIGKILL)
+        out, _ = child.communicate()
+        lines = [x for x in (first + out).decode().split("\n")[:-1] if x]
+        for line in lines:
+            op, rid = line.split()
+            (added if op == "add" else undone).add(rid)
+        live = check_undo_consistency(path)
+        # every acknowledged entry is there unless its undo was acknowledged; at most one
+        # more (the undo cut short by the kill) may already be reverted
+        assert live.isdisjoint(undone), f"round {rounds}: acknowledged undo not kept"
+        assert len((added - undone) - live) <= 1, f"round {rounds}: entries lost"
+        # the next round starts from what is there: an unacknowledged undo counts as done
+        undone |= (added - undone) - live
+    assert rounds >= 3 and undone and added - undone
