@@ -5,8 +5,8 @@ stored with the guard's reasons in ``Reading.stored_as_read``, shown in the repo
 A value is held when (the rule is ours; each limit says where it comes from):
 
 * **above nominal**: more than the nominal thickness. Corrosion only removes steel; a value
-  above nominal is a misreading, a drawing error or a slip, and the value used would be
-  capped at nominal, hiding any loss (common practice, no source).
+  above nominal is a misreading, a drawing error or a slip (120 typed for 12.0), and the
+  value used would be capped at nominal, hiding any loss (common practice, no source).
 * **below the plausible range**: less than :data:`LOW` = 20 % of nominal. Possible on a
   badly wasted plate, so it must be confirmed rather than refused (the issue's figure;
   common practice, no source).
@@ -76,17 +76,15 @@ def hold_reasons(
         out.append(
             Hold(
                 "above_nominal",
-                f"{_fmt(value)} {unit} is above the nominal {_fmt(nom)} {unit} "
-                f"({100 * r:.0f} %): steel is only lost, and the value used would be capped "
-                "at nominal, hiding any loss",
+                f"{_fmt(value)} {unit} is above the nominal {_fmt(nom)} {unit} ({100 * r:.0f} %)",
             )
         )
     elif r < LOW:
         out.append(
             Hold(
                 "below_range",
-                f"{_fmt(value)} {unit} is {100 * r:.0f} % of the nominal {_fmt(nom)} {unit}, "
-                f"below {100 * LOW:.0f} %",
+                f"{_fmt(value)} {unit} is {100 * r:.0f} % of the nominal {_fmt(nom)} {unit} "
+                f"(below {100 * LOW:.0f} %)",
             )
         )
     if out:
@@ -97,15 +95,15 @@ def hold_reasons(
 
 def _slip(value: float, unit: str, v: float, t_nominal: float) -> str:
     """A guess at what was meant when the value is out of range, or ''."""
-    for factor, what in ((1 / TEN, "a slipped decimal point"), (TEN, "a slipped decimal point")):
+    for factor in (1 / TEN, TEN):
         if LOW <= v * factor / t_nominal <= HIGH:
-            return f"did you mean {_fmt(value * factor)} {unit}? ({what})"
+            return f"did you mean {_fmt(value * factor)} {unit}?"
     for alt in ("mm", "in"):
         if alt == unit:
             continue
         a = to_internal(value, alt, "length")
         if a != v and LOW <= a / t_nominal <= HIGH:
-            return f"it fits as {_fmt(value)} {alt}: a value in {alt} entered as {unit}?"
+            return f"it fits as {_fmt(value)} {alt} (typed in {alt}?)"
     return ""
 
 
@@ -119,8 +117,8 @@ def _outlier(value: float, unit: str, v: float, others: Sequence[float]) -> list
         return [
             Hold(
                 "outlier",
-                f"{_fmt(value)} {unit} is ten times or more from the median {shown} of the "
-                f"{n} other reading(s) here",
+                f"{_fmt(value)} {unit} is ten times or more from the other readings here "
+                f"(median {shown})",
             )
         ]
     if n < MIN_OTHERS:
@@ -133,8 +131,8 @@ def _outlier(value: float, unit: str, v: float, others: Sequence[float]) -> list
     return [
         Hold(
             "outlier",
-            f"{_fmt(value)} {unit} is far from the other {n} readings here (median {shown}; "
-            f"modified z-score {z:+.1f}, limit {Z_LIMIT:g})",
+            f"{_fmt(value)} {unit} is far from the other {n} readings here (median {shown}, "
+            f"modified z-score {z:+.1f})",
         )
     ]
 

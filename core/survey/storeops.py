@@ -331,6 +331,34 @@ class StoreOps:
     def delete_perforation(self, member_id: str, station_id: str, perf_id: str, who: str) -> None:
         self._delete("perforation", member_id, station_id, perf_id, who)
 
+    def update_cut(
+        self, kind: str, member_id: str, station_id: str, ident: str, changes: dict, who: str
+    ) -> Saved:
+        """Correct a loss band or a perforation (limits, thickness, part, note); the old
+        values go to history. Readings on a band keep their region.
+
+        Raises:
+            InputError: unknown entry, a value out of its plate, or ``kind`` unknown.
+        """
+        cls = {"band": Band, "perforation": Perforation}.get(kind)
+        if cls is None:
+            raise InputError(f"{kind!r} is not 'band' or 'perforation'")
+        with self._txn(who):
+            data = {**self._get(kind, member_id, station_id, ident), **changes}
+            if data["id"] != ident:
+                raise InputError(
+                    f"a {kind} id cannot be changed", where=_place(member_id, station_id)
+                )
+            m, defn = self._member_and_definition(member_id)
+            b = _validated(cls, data, kind, _place(member_id, station_id))
+            st = self.station(member_id, station_id)
+            good = {(r.part, r.region): [1.0] for r in st.readings}
+            probs = check_cut(m, defn, kind, b, m.place(station_id), m.length_unit, good)
+            raise_errors(probs, f"{kind} {ident!r}")
+            self._check_later(member_id, station_id)
+            self._update(kind, member_id, station_id, ident, b.model_dump(mode="json"))
+            return self._saved(ident, probs)
+
     def _add_cut(self, kind, cls, member_id, station_id, item, who) -> Saved:
         with self._txn(who):
             data = dict(item)
@@ -347,14 +375,20 @@ class StoreOps:
             self._insert(kind, member_id, station_id, b.id, b.model_dump(mode="json"))
             return self._saved(b.id, probs)
 
+    def used_ids(self, kind: str, member: str, station: str = "") -> set[str]:
+        """Every id of ``kind`` ever used at that place, withdrawn ones included (an id is
+        never used twice)."""
+        with self._lock:
+            return {
+                r[0]
+                for r in self._conn.execute(
+                    "SELECT id FROM entity WHERE kind = ? AND member = ? AND station = ?",
+                    (kind, member, station),
+                )
+            }
+
     def _next_id(self, kind: str, member: str, station: str, prefix: str) -> str:
-        used = {
-            r[0]
-            for r in self._conn.execute(
-                "SELECT id FROM entity WHERE kind = ? AND member = ? AND station = ?",
-                (kind, member, station),
-            )
-        }
+        used = self.used_ids(kind, member, station)
         n = len(used) + 1
         while f"{prefix}{n}" in used:
             n += 1
