@@ -23,11 +23,11 @@ from kivy.factory import Factory
 from kivy.metrics import dp, sp
 from kivy.properties import BooleanProperty, NumericProperty, ObjectProperty, StringProperty
 from kivy.uix.boxlayout import BoxLayout
-from kivy.uix.floatlayout import FloatLayout
 from kivy.uix.label import Label
 from kivy.uix.widget import Widget
 
 from fieldapp import theme
+from fieldapp.sheets import Overlay
 
 KEY_DP = 60  # key height (>= 56 dp for a gloved finger)
 GAP_DP = 12  # between keys (>= 12 dp)
@@ -192,7 +192,7 @@ class PadPanel(BoxLayout):
         self.message, self.level = text, level
 
 
-class PadSheet(FloatLayout):
+class PadSheet(Overlay):
     """A pad panel over the screen at the pad's place (see :func:`pad_box`), for a number
     that is not a reading; touches outside it do nothing. ``done(text)`` is called on Enter
     and returns an error text to show (empty: close)."""
@@ -203,7 +203,6 @@ class PadSheet(FloatLayout):
         super().__init__(**kw)
         self.done = None
         self.typed = None
-        self.is_open = False
         self.panel = Factory.PadPanel()
         self.panel.size_hint = (None, None)
         self.panel.bind(on_commit=self._commit, on_close=lambda *_a: self.dismiss())
@@ -228,11 +227,7 @@ class PadSheet(FloatLayout):
         p.title, p.text, p.unit, p.allow_minus, p.held = title, text, unit, minus, False
         p.say(hint or "Enter keeps the value; Close leaves it as it was.")
         self.done, self.typed = done, typed
-        if not self.is_open:
-            Window.add_widget(self)
-            self.is_open = True
-        self.size = Window.size
-        self.pos = (0, 0)
+        self.show_over()
         self._place()
 
     def _place(self, *_a) -> None:
@@ -247,24 +242,11 @@ class PadSheet(FloatLayout):
             self.dismiss()
 
     def dismiss(self) -> None:
-        if self.is_open:
-            Window.remove_widget(self)
-            self.is_open = False
-            if self.typed is not None:
-                self.typed(None)  # closed: show what is stored
-            self.typed = None
-
-    def on_touch_down(self, touch) -> bool:
-        super().on_touch_down(touch)
-        return True
-
-    def on_touch_move(self, touch) -> bool:
-        super().on_touch_move(touch)
-        return True
-
-    def on_touch_up(self, touch) -> bool:
-        super().on_touch_up(touch)
-        return True
+        was = self.is_open
+        super().dismiss()
+        if was and self.typed is not None:
+            self.typed(None)  # closed: show what is stored
+        self.typed = None
 
 
 def portrait(width: float, height: float) -> bool:

@@ -49,8 +49,8 @@ class MemberScreen(Screen):
         m = s.member()
         unit = s.length_unit
         girder = m.section.get("girder")
-        label = f"  ({m.label})" if m.label else ""
-        self.ids.title.text = f"Member {m.id}{label}, span {m.span.value:g} {m.span.unit}"
+        label = f"  ·  {m.label}" if m.label else ""
+        self.ids.title.text = f"Member {m.id}{label}  ·  span {m.span.value:g} {m.span.unit}"
         self._stored = templates.girder_values(girder) if girder else {}
         for key, (lab, f, label) in self.fields.items():
             lab.text = f"{label} ({unit})"

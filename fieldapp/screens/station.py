@@ -41,6 +41,7 @@ class StationScreen(EntryMixin, EntriesMixin, Screen):
     def __init__(self, **kw) -> None:
         super().__init__(**kw)
         self._built_key = None
+        self._here = None
         self._awaiting, self._sent = False, ""
         self._note_soon = Clock.create_trigger(self.keep_note, 1.0)
         self.held: list = []
@@ -61,6 +62,13 @@ class StationScreen(EntryMixin, EntriesMixin, Screen):
             if self.mode == "list":
                 self.show_entries()
             return
+        here = (s.path, m.id, st.id)
+        if here != self._here:  # another survey or station: nothing typed or said carries over
+            self._here = here
+            self.edit, self.form = None, {}
+            self.unhold()
+            self.ids.pad.text = ""
+            self.ids.pad.say("")
         self.ids.title.text = f"{m.id}  ·  station {st.id} at {st.position:g} {s.position_unit}"
         key = (m.id, repr(m.section), s.length_unit)
         if key != self._built_key:
