@@ -82,4 +82,6 @@ def test_names_the_inspector_reads():
     assert place_name("web", "b1") == "web band b1"
     assert place_name("angle_bl", "h") == "bottom-left angle, flat leg"
     assert line_name("cover_top_l") == "top cover, left" and line_name("my_line") == "my line"
-    assert readable("rivet line web_bottom at angle_bl") == "rivets web, bottom at bottom-left angle"
+    assert (
+        readable("rivet line web_bottom at angle_bl") == "rivets web, bottom at bottom-left angle"
+    )
