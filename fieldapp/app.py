@@ -17,19 +17,21 @@ from kivy.clock import Clock
 from kivy.core.window import Window
 from kivy.factory import Factory
 from kivy.lang import Builder
-from kivy.properties import BooleanProperty, ObjectProperty, StringProperty
+from kivy.properties import BooleanProperty, NumericProperty, ObjectProperty, StringProperty
 
 from core import CAUTION
 from core.errors import AsfoundError
 from core.survey import export_survey
 from fieldapp import screens  # noqa: F401  (registers the screen classes for kv)
 from fieldapp.live import LiveResult, ResultsWorker
+from fieldapp.pad import PadSheet, pad_width
 from fieldapp.places import PlaceBook
 from fieldapp.session import Session
+from fieldapp.sheets import ConfirmSheet
 
 KV_DIR = Path(__file__).resolve().parent / "kv"
-KV_FILES = ("theme.kv", "pad.kv", "surveys.kv", "member.kv", "station.kv", "rivets.kv",
-            "results.kv", "root.kv")  # fmt: skip
+KV_FILES = ("theme.kv", "pad.kv", "sheets.kv", "surveys.kv", "member.kv", "station.kv",
+            "rivets.kv", "results.kv", "root.kv")  # fmt: skip
 SCREENS = ("surveys", "member", "station", "rivets", "results")
 ACK_WAIT = 0.25  # s: an entry's acknowledgement waits at most this long for its result
 KEY_ENTER, KEY_PAD_ENTER, KEY_ESCAPE, KEY_BACKSPACE = 13, 271, 27, 8
@@ -46,6 +48,8 @@ class FieldApp(App):
     result = ObjectProperty(None, allownone=True)
     result_error = StringProperty("")
     caution = StringProperty(CAUTION)
+    portrait = BooleanProperty(False)
+    pad_w = NumericProperty(440)
 
     def __init__(self, folder: Path, survey: Path | None = None, **kw) -> None:
         super().__init__(**kw)
@@ -61,6 +65,8 @@ class FieldApp(App):
         self.worker: ResultsWorker | None = None
         self._acks: list = []
         self._ack_soon = Clock.create_trigger(self._flush_acks, ACK_WAIT)
+        self.sheet: PadSheet | None = None
+        self.confirm: ConfirmSheet | None = None
 
     # ------------------------------------------------------------------ start and stop
     def build(self):
@@ -71,9 +77,19 @@ class FieldApp(App):
         root = Factory.Root()
         self.bind(result=self._result_changed, result_error=self._result_changed)
         self.worker = ResultsWorker(self._post)
-        Window.bind(on_key_down=self._on_key)
+        Window.bind(on_key_down=self._on_key, size=self._resized)
         Window.clearcolor = (0.98, 0.98, 0.96, 1)
+        self.sheet, self.confirm = PadSheet(), ConfirmSheet()
+        self._resized()
         return root
+
+    def _resized(self, *_a) -> None:
+        """Landscape or portrait, and the width of the pad's column, from the window."""
+        self.portrait = Window.width < Window.height
+        self.pad_w = pad_width(Window.width, Window.height)
+        for s in (self.sheet, self.confirm):
+            if s is not None and s.is_open:
+                s.dismiss()
 
     def on_start(self) -> None:
         target = self.first_survey or self.book.last
@@ -83,7 +99,10 @@ class FieldApp(App):
             self.go("surveys")
 
     def on_stop(self) -> None:
-        Window.unbind(on_key_down=self._on_key)
+        Window.unbind(on_key_down=self._on_key, size=self._resized)
+        for s in (self.sheet, self.confirm):
+            if s is not None:
+                s.dismiss()
         if self.worker is not None:
             self.worker.stop()
         if self.session is not None:
@@ -158,13 +177,38 @@ class FieldApp(App):
             ack()
 
     def undo(self) -> None:
+        """The Undo button: say exactly what would be undone, then ask (or say why not)."""
         if self.session is None:
             return
-        msg = self.guard(self.session.undo)
+        got = self.guard(self.session.undo_plan)
+        if got is None:
+            return
+        plan, what = got
+        if plan.change is None:
+            self.tell("nothing of yours to undo on this device", "info")
+        elif plan.refused:
+            why = plan.refused.removeprefix("undo refused: ")
+            self.confirm.tell(f"Cannot undo {what}: {why}.")
+        else:
+            self.confirm.ask(
+                f"Undo {what}?", "Undo it", lambda: self.undo_now(plan.change), "Keep it"
+            )
+
+    def undo_now(self, change: int) -> str | None:
+        """Undo ``change`` (the one shown); the sentence said, or None if refused."""
+        msg = self.guard(lambda: self.session.undo(change))
         if msg is not None:
             self.tell(msg, "ok")
             self.go(self.screen)
             self.refresh_results()
+        return msg
+
+    def ask_number(self, title: str, text: str, unit: str, done, **kw):
+        """The pad over the screen for one number; ``done(text)`` stores it and returns an
+        error sentence, or "" when stored (the pad closes). ``kw``: ``minus``, ``typed``
+        (called as typed), ``hint`` (see :meth:`fieldapp.pad.PadSheet.show`)."""
+        self.sheet.show(title, text, unit, done, **kw)
+        return self.sheet
 
     # ------------------------------------------------------------------ live results
     def refresh_results(self) -> None:
@@ -243,6 +287,31 @@ class FieldApp(App):
 
     # ------------------------------------------------------------------ keyboard
     def _on_key(self, _window, key, _scancode, codepoint, _modifiers) -> bool:
+        if self.confirm is not None and self.confirm.is_open:
+            if key == KEY_ESCAPE:
+                self.confirm.answer(False)
+            return True
+        if self.sheet is not None and self.sheet.is_open:
+            return pad_keys(self.sheet.panel, key, codepoint or "", self.sheet.dismiss)
         if self.screen == "station":
             return self.screen_of("station").key(key, codepoint or "")
         return key == KEY_ESCAPE  # Escape never closes the app
+
+
+def pad_keys(panel, key: int, codepoint: str, close) -> bool:
+    """Keyboard keys for a pad panel: digits, point, minus, Backspace, Enter, Escape."""
+    if key == KEY_ESCAPE:
+        close()
+    elif key in (KEY_ENTER, KEY_PAD_ENTER):
+        panel.key("Enter")
+    elif key == KEY_BACKSPACE:
+        panel.key("Back")
+    elif codepoint and codepoint in "0123456789":
+        panel.key(codepoint)
+    elif codepoint in (".", ","):
+        panel.key(".")
+    elif codepoint == "-":
+        panel.key("-")
+    else:
+        return False
+    return True

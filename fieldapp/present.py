@@ -10,6 +10,7 @@ from dataclasses import dataclass
 from core.assess import LimitState, StationResult
 from core.checks.flags import Flag, Level
 from core.units import show
+from fieldapp.names import readable
 
 DASH = "-"
 
@@ -58,12 +59,12 @@ def row(ls: LimitState, system: str) -> Row:
         found = "n/a (note)"
     return Row(
         ls.key,
-        ls.name,
+        readable(ls.name),
         capacity(ls.C_built, ls.kind, system),
         found,
         ratio_text(ls.ratio),
         rf_text(ls.measure),
-        ls.note if ls.C_found is None else "",
+        readable(ls.note) if ls.C_found is None else "",
     )
 
 
@@ -92,15 +93,16 @@ def flag_line(flag: Flag | None) -> str:
     """The level as a word, what the flag is about, and core's sentence."""
     if flag is None:
         return "no findings"
-    about = flag.subject.split(" / ")[-1]
-    return f"[{LEVEL_MARK[flag.level]}] {about}: {flag.message}"
+    about = readable(flag.subject.split(" / ")[-1])
+    return f"[{LEVEL_MARK[flag.level]}] {about}: {readable(flag.message)}"
 
 
 def flag_head(flag: Flag | None) -> str:
     """The level as a word and what the worst flag is about (its sentence is on Results)."""
     if flag is None:
         return "no findings"
-    return f"[{LEVEL_MARK[flag.level]}] {flag.level.label}: {flag.subject.split(' / ')[-1]}"
+    about = readable(flag.subject.split(" / ")[-1])
+    return f"[{LEVEL_MARK[flag.level]}] {flag.level.label}: {about}"
 
 
 def big(value: float) -> str:
@@ -116,7 +118,7 @@ def governing_line(sr: StationResult) -> str:
     if g is None:
         return "no limit state could be evaluated"
     rf = f", {g.rating.symbol} {rf_text(g.measure)}" if g.rating is not None else ""
-    return f"governs: {g.name}, as-found / as-built {ratio_text(g.ratio)}{rf}"
+    return f"governs: {readable(g.name)}, as-found / as-built {ratio_text(g.ratio)}{rf}"
 
 
 def loss_text(sr: StationResult, part: str) -> str:

@@ -16,6 +16,7 @@ from kivy.uix.label import Label
 from kivy.uix.widget import Widget
 
 from fieldapp import theme
+from fieldapp.names import line_name
 
 DOT_DP = 52  # a rivet's touch target
 LINE_LABEL_DP = 170  # width of the line names
@@ -179,7 +180,8 @@ class RivetRow(Widget):
 
     def _place(self, *_a) -> None:
         lab = self.name_label
-        lab.text = f"{self.line}\n{self.summary}" if self.summary else self.line
+        name = line_name(self.line)
+        lab.text = f"{name}\n{self.summary}" if self.summary else name
         lab.pos, lab.size = (self.x + dp(4), self.y), (dp(LINE_LABEL_DP) - dp(8), self.height)
         lab.text_size = lab.size
         lab.valign = "middle"

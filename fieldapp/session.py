@@ -14,10 +14,11 @@ from pathlib import Path
 
 from core.definition import SectionDefinition
 from core.errors import InputError
-from core.survey import FieldStore, Member, Saved, Survey, import_survey
+from core.survey import FieldStore, Member, Saved, Survey, UndoPlan, import_survey
+from core.survey.guard import Hold, as_read_text, hold_reasons
 from core.survey.model import RIVET_STATES
-from core.survey.readings import nominal_of, plausibility
-from fieldapp import templates
+from core.survey.readings import nominal_of
+from fieldapp import describe, templates
 from fieldapp.places import Place, PlaceBook, new_store_path
 
 #: the next state when a rivet is tapped
@@ -158,26 +159,73 @@ class Session:
         doc = {"survey": self.header, "members": [m]}
         return Snapshot(seq, Survey.model_validate(doc), self.member_id, self.station_id)
 
-    def reading_warnings(self, part: str, text: str) -> list[str]:
-        """core's plausibility warnings for a value being typed (empty while incomplete)."""
-        try:
-            v = parse_number(text, "reading")
-        except InputError:
-            return []
+    def holds(self, part: str, region: str | None, text: str, skip: str = "") -> list[Hold]:
+        """core's reasons to hold the reading typed as ``text`` on a part region (the other
+        readings of the region, less ``skip``, are compared). Raises InputError when the
+        text is not a number."""
+        v = parse_number(text, "reading")
         if v <= 0:
-            return []
+            return []  # the store refuses it with its own message
+        st = self.station()
+        others = [
+            r.mm()
+            for r in st.readings
+            if r.part == part and (r.region or None) == (region or None) and r.id != skip
+        ]
         t_nom = nominal_of(self.definition(), part)
-        return [p.message for p in plausibility(v, self.length_unit, t_nom)]
+        return hold_reasons(v, self.length_unit, t_nom, others)
 
     # ------------------------------------------------------------------ entries
-    def add_reading(self, part: str, text: str, region: str | None = None) -> Saved:
-        """Store a thickness reading typed as ``text`` in the survey's length unit."""
+    def add_reading(
+        self, part: str, text: str, region: str | None = None, held: list[Hold] = ()
+    ) -> Saved:
+        """Store a thickness reading typed as ``text`` in the survey's length unit;
+        ``held``: the reasons the guard gave when the inspector chose "store as read"."""
         v = parse_number(text, f"reading on {part}")
         entry = {"part": part, "region": region, "value": v, "unit": self.length_unit}
+        if held:
+            entry["stored_as_read"] = as_read_text(held)
         return self.store.add_reading(self.member_id, self.station_id, entry, self.who)
 
-    def delete_reading(self, reading_id: str) -> None:
-        self.store.delete_reading(self.member_id, self.station_id, reading_id, self.who)
+    def correct_reading(self, reading_id: str, text: str, held: list[Hold] = ()) -> Saved:
+        """A new value for a stored reading (the old one stays in the history)."""
+        v = parse_number(text, f"reading {reading_id}")
+        changes = {"value": v, "unit": self.length_unit, "stored_as_read": as_read_text(held)}
+        return self.store.update_reading(
+            self.member_id, self.station_id, reading_id, changes, self.who
+        )
+
+    def withdraw(self, kind: str, ident: str) -> None:
+        """Withdraw an entry of the station (soft: it stays in the store and the history).
+        A loss band goes with the readings taken on it, in one change."""
+        m, s, who = self.member_id, self.station_id, self.who
+        store = self.store
+        if kind == "reading":
+            store.delete_reading(m, s, ident, who)
+        elif kind == "band":
+            with store.batch(who):
+                for r in self.station().readings:
+                    if r.region == ident:
+                        store.delete_reading(m, s, r.id, who)
+                store.delete_band(m, s, ident, who)
+        elif kind == "perforation":
+            store.delete_perforation(m, s, ident, who)
+        elif kind == "photo":
+            photos = [p for p in self.station().photos if p != ident]
+            store.update_station(m, s, {"photos": photos}, who)
+        elif kind == "note":
+            store.set_note(m, s, "", who)
+        else:
+            raise InputError(f"an entry of kind {kind!r} cannot be withdrawn here")
+
+    def correct_cut(self, kind: str, ident: str, lo: str, hi: str, t: str = "") -> Saved:
+        """New limits (and for a band the thickness) of a loss band or a hole."""
+        changes = {"lo": parse_number(lo, "from"), "hi": parse_number(hi, "to")}
+        if kind == "band":
+            changes["t"] = parse_number(t, "band thickness") if t.strip() else None
+        return self.store.update_cut(
+            kind, self.member_id, self.station_id, ident, changes, self.who
+        )
 
     def add_band(self, part: str, lo: str, hi: str, t: str) -> Saved:
         band = {
@@ -206,10 +254,16 @@ class Session:
             self.member_id, self.station_id, {"photos": photos}, self.who
         )
 
+    def next_station_id(self) -> str:
+        """The first free station name ``S<n>`` of the member (deleted ones stay taken)."""
+        used = set(self.station_ids()) | self.store.used_ids("station", self.member_id)
+        n = len(used) + 1
+        while f"S{n}" in used:
+            n += 1
+        return f"S{n}"
+
     def add_station(self, station_id: str, position: str) -> Saved:
-        sid = station_id.strip()
-        if not sid:
-            raise InputError("station: no name typed")
+        sid = station_id.strip() or self.next_station_id()
         st = {"id": sid, "position": parse_number(position, f"position of station {sid!r}")}
         saved = self.store.add_station(self.member_id, st, self.who)
         self.select(station=saved.id)
@@ -235,19 +289,32 @@ class Session:
         self.store.set_rivet_state(self.member_id, line, position, new, self.who)
         return new
 
-    def undo(self) -> str:
-        """Undo the last change; a sentence saying what was undone."""
-        rows = self.store.undo_last(self.who)
+    def undo_plan(self) -> tuple[UndoPlan, str]:
+        """What Undo would revert (core's plan) and the sentence that says so."""
+        plan = self.store.undo_plan(self.who)
+        return plan, describe.change(plan.rows, self.length_unit, self.position_unit)
+
+    def undo(self, change: int | None = None) -> str:
+        """Undo the last change of this person on this device (``change``: the one shown);
+        a sentence saying what was undone. Raises UndoRefusedError with core's reason."""
+        rows = self.store.undo_last(self.who, change=change)
         if not rows:
-            return "nothing to undo"
-        h = rows[0]
-        what = {"add": "added", "update": "changed", "delete": "deleted"}.get(h.action, h.action)
-        if self.member_id and self.member_id not in self.member_ids():
-            self.member_id = ""
-        if self.station_id and self.station_id not in self.station_ids():
+            return "nothing of yours to undo on this device"
+        what = describe.change(rows, self.length_unit, self.position_unit)
+        self.after_removal()
+        return f"undone: {what}"
+
+    def after_removal(self) -> None:
+        """Keep the place valid when an undo or a withdrawal removed it: the first member
+        and station left (the Member screen can always add a station)."""
+        members = self.member_ids()
+        if self.member_id not in members:
+            self.member_id = members[0] if members else ""
             self.station_id = ""
+        stations = self.station_ids()
+        if self.station_id not in stations:
+            self.station_id = stations[0] if stations else ""
         self.remember()
-        return f"undone: {h.kind} {h.entity!r} {what}"
 
 
 def _user() -> str:

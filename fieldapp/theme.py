@@ -18,6 +18,8 @@ CHOSEN = (0.95, 0.55, 0.0, 1.0)  # the selected part
 WARN_BG = (1.0, 0.93, 0.70, 1.0)  # behind a warning
 ERROR_BG = (1.0, 0.84, 0.84, 1.0)  # behind an error
 OK_BG = (0.86, 0.95, 0.86, 1.0)  # behind an acknowledgement
+HELD_BG = (1.0, 0.80, 0.55, 1.0)  # behind a held value and its reasons
+HELD_YES = (1.0, 0.90, 0.75, 1.0)  # the "store as read" choice
 
 #: flag levels 0..3 (within limits .. needs immediate attention): ground colour
 LEVEL_BG = (
@@ -36,6 +38,7 @@ RIVET_LOOK = {
 }
 
 BODY_SP = 20  # body text, sp
-SMALL_SP = 18  # smallest text anywhere, sp
+SMALL_SP = 18  # small text, sp
+MIN_SP = 16  # a fixed slot shrinks its text down to this size before it would cut it
 TITLE_SP = 26
 TOUCH_DP = 56  # height of buttons and fields (>= 48 dp)

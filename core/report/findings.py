@@ -96,6 +96,25 @@ def readings(
     return out
 
 
+def as_read(st: Styles, member) -> list:
+    """The readings the entry check held as probable slips and the inspector stored as read
+    (``Reading.stored_as_read``), each with the reasons shown at the time."""
+    held = [(s.id, r) for s in member.stations for r in s.readings if r.stored_as_read]
+    if not held:
+        return []
+    out = [Paragraph("Readings stored as read although the entry check held them", st.h3)]
+    for sid, r in held:
+        out.append(
+            Paragraph(
+                f"<b>{esc(sid)}</b>, {esc(_region(r.part, r.region))}: reading {esc(r.id)} = "
+                f"{esc(f'{r.value:g}')} {esc(r.unit)} ({esc(r.who or 'unknown')}): "
+                f"{esc(r.stored_as_read)}",
+                st.small,
+            )
+        )
+    return out
+
+
 def validation(st: Styles, problems, m: MemberResult, source: str) -> list:
     """Warnings and notes of the survey's validation that concern member ``m`` and are not
     already numbered under the readings table."""

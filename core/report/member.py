@@ -249,6 +249,7 @@ def member_pages(
         out.append(Paragraph("Readings", st.h2))
         notes = {s.id: s.notes for s in member.stations}
         out += findings.readings(st, m, system, width, notes)
+        out += findings.as_read(st, member)
     out += findings.validation(st, problems, m, source)
     out.append(CondPageBreak(150))
     out.append(Paragraph("Flags", st.h2))

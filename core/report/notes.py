@@ -14,9 +14,14 @@ from core.assess.results import Assessment
 from core.report.source import Source
 from core.report.styles import INK, RULE, Styles, esc, make_table_style, text
 from core.report.tables import caption, grid
+from core.survey.device import short
 
 #: how many of the newest history entries are listed
 HISTORY_ROWS = 15
+#: how many corrections, withdrawals and undos of entries are listed (the newest)
+CORRECTION_ROWS = 60
+#: the kinds of entry the inspector corrects (old values shown in their own table)
+CORRECTABLE = ("reading", "band", "perforation", "station")
 
 
 def check_sources(a: Assessment) -> list[tuple[str, str]]:
@@ -97,28 +102,37 @@ def history(st: Styles, src: Source, system: str, width: float) -> list:
             st.body,
         )
     )
+    fixes = [e for e in h if e.kind in CORRECTABLE and e.action in ("update", "delete", "undo")]
+    if fixes:
+        shown = fixes[-CORRECTION_ROWS:]
+        more = f" (the newest {len(shown)} of {len(fixes)})" if len(shown) < len(fixes) else ""
+        out.append(caption(st, f"Corrections, withdrawals and undos of entries{more}", system))
+        out.append(_table(st, shown, width))
+    tail = h[-HISTORY_ROWS:]
+    out.append(caption(st, f"The newest {len(tail)} history entries", system))
+    out.append(_table(st, tail, width))
+    return out
+
+
+def _table(st: Styles, entries, width: float):
     rows = []
-    for e in h[-HISTORY_ROWS:]:
+    for e in entries:
         what = " / ".join(x for x in (e.kind, e.member, e.station, e.entity, e.field) if x)
         rows.append(
             [
                 e.at,
-                e.who,
+                f"{e.who} ({short(e.device)})" if e.device else e.who,
                 e.action + (" (undone)" if e.undone else ""),
                 what,
                 f"{_short(e.old)} → {_short(e.new)}",
             ]
         )
-    out.append(caption(st, f"The newest {len(rows)} history entries", system))
-    out.append(
-        grid(
-            st,
-            ["when", "who", "action", "what", "old → new"],
-            rows,
-            [width * x for x in (0.17, 0.12, 0.1, 0.2, 0.41)],
-        )
+    return grid(
+        st,
+        ["when", "who (device)", "action", "what", "old → new"],
+        rows,
+        [width * x for x in (0.17, 0.15, 0.1, 0.2, 0.38)],
     )
-    return out
 
 
 def review_block(st: Styles, width: float) -> KeepTogether:

@@ -7,6 +7,7 @@ Public API::
                              export_survey, import_survey, region_stats, station_stats)
 """
 
+from core.survey.device import this_device
 from core.survey.document import (
     check_file,
     export_document,
@@ -34,6 +35,7 @@ from core.survey.model import (
 from core.survey.problems import Problem, errors
 from core.survey.readings import RegionStats, region_stats, station_loss, station_stats
 from core.survey.store import FieldStore, HistoryEntry, Saved
+from core.survey.undo import UndoPlan, UndoRefusedError
 from core.survey.validate import check_document, check_survey
 
 __all__ = [
@@ -55,6 +57,8 @@ __all__ = [
     "StationLoads",
     "Survey",
     "SurveyHeader",
+    "UndoPlan",
+    "UndoRefusedError",
     "check_document",
     "check_file",
     "check_survey",
@@ -68,4 +72,5 @@ __all__ = [
     "region_stats",
     "station_loss",
     "station_stats",
+    "this_device",
 ]

@@ -4,17 +4,26 @@ Version 1 (first field trials) kept a reading's value and unit as one text ("9.1
 deleted rows for good (only the history remembered them) and did not group history rows
 into changes. Version 2 keeps value and unit apart as entered, deletes softly (``deleted``
 column) and groups the rows of one change (``change`` column) so a change can be undone.
+Version 3 records on which device each change was made (``history.device``; rows written
+before it get :data:`DEVICE_BEFORE_V3`, so no device can undo them), which change an undo
+reverted (``history.undoes``), and gives every entry an id unique across devices
+(``entity.uid``: 32 hex digits, random for new entries; for entries migrated from an older
+layout a hash of the store's creation time and the entry's key, so two copies of one store
+migrated apart give the same ids), for a later merge of two devices' stores.
 """
 
 from __future__ import annotations
 
+import hashlib
 import json
 import sqlite3
 
 from core.errors import StoreError
 
-CURRENT = 2
+CURRENT = 3
 STORE_FORMAT = "asfound.store"
+#: the device of every history row written before layout 3 (no device can undo those)
+DEVICE_BEFORE_V3 = "unknown-before-layout-3"
 
 V1_SCHEMA = """
 CREATE TABLE meta(key TEXT PRIMARY KEY, value TEXT NOT NULL);
@@ -42,6 +51,22 @@ CREATE TABLE history(
 CREATE INDEX history_change ON history(change);
 """
 
+V3_SCHEMA = """
+CREATE TABLE meta(key TEXT PRIMARY KEY, value TEXT NOT NULL);
+CREATE TABLE entity(
+  kind TEXT NOT NULL, member TEXT NOT NULL, station TEXT NOT NULL, id TEXT NOT NULL,
+  seq INTEGER NOT NULL, data TEXT NOT NULL, deleted INTEGER NOT NULL DEFAULT 0,
+  uid TEXT NOT NULL UNIQUE,
+  PRIMARY KEY (kind, member, station, id));
+CREATE TABLE history(
+  id INTEGER PRIMARY KEY AUTOINCREMENT, change INTEGER NOT NULL, at TEXT NOT NULL,
+  who TEXT NOT NULL, device TEXT NOT NULL, action TEXT NOT NULL, kind TEXT NOT NULL,
+  member TEXT NOT NULL, station TEXT NOT NULL, entity TEXT NOT NULL, field TEXT NOT NULL,
+  old TEXT, new TEXT, undone INTEGER NOT NULL DEFAULT 0, undoes INTEGER);
+CREATE INDEX history_change ON history(change);
+CREATE INDEX history_author ON history(who, device, undone, change);
+"""
+
 
 def split_value(text: str) -> tuple[float, str]:
     """Split a version 1 reading text such as ``"9.1 mm"`` into (9.1, "mm")."""
@@ -52,12 +77,15 @@ def split_value(text: str) -> tuple[float, str]:
         raise StoreError(f"version 1 reading value {text!r} is not 'number unit'") from None
 
 
-def _v1_to_v2(conn: sqlite3.Connection, at: str) -> None:
+def _statements(schema: str, *starts: str) -> list[str]:
+    return [x for x in schema.split(";") if x.strip() and x.strip().startswith(starts)]
+
+
+def _v1_to_v2(conn: sqlite3.Connection, at: str, device: str) -> None:
     conn.execute("ALTER TABLE entity ADD COLUMN deleted INTEGER NOT NULL DEFAULT 0")
     conn.execute("ALTER TABLE history RENAME TO history_v1")
-    for stmt in V2_SCHEMA.split(";"):
-        if "CREATE TABLE history" in stmt or "CREATE INDEX" in stmt:
-            conn.execute(stmt)
+    for stmt in _statements(V2_SCHEMA, "CREATE TABLE history", "CREATE INDEX"):
+        conn.execute(stmt)
     conn.execute(
         "INSERT INTO history(id, change, at, who, action, kind, member, station, entity, field,"
         " old, new) SELECT id, id, at, who, action, kind, member, station, entity, field, old,"
@@ -85,10 +113,51 @@ def _v1_to_v2(conn: sqlite3.Connection, at: str) -> None:
     )
 
 
-MIGRATIONS = {1: _v1_to_v2}
+def migrated_uid(created: str, kind: str, member: str, station: str, ident: str) -> str:
+    """The uid of an entry that existed before layout 3 (the same in every copy of a store)."""
+    key = "\x1f".join((created, kind, member, station, ident))
+    return hashlib.sha256(key.encode("utf-8")).hexdigest()[:32]
 
 
-def migrate(conn: sqlite3.Connection, version: int, at: str) -> None:
+def _v2_to_v3(conn: sqlite3.Connection, at: str, device: str) -> None:
+    row = conn.execute("SELECT value FROM meta WHERE key = 'created'").fetchone()
+    created = row[0] if row else ""
+    conn.execute("ALTER TABLE entity RENAME TO entity_v2")
+    conn.execute("ALTER TABLE history RENAME TO history_v2")
+    conn.execute("DROP INDEX IF EXISTS history_change")
+    for stmt in _statements(
+        V3_SCHEMA, "CREATE TABLE entity", "CREATE TABLE history", "CREATE INDEX"
+    ):
+        conn.execute(stmt)
+    rows = conn.execute(
+        "SELECT kind, member, station, id, seq, data, deleted FROM entity_v2 ORDER BY seq"
+    ).fetchall()
+    conn.executemany(
+        "INSERT INTO entity(kind, member, station, id, seq, data, deleted, uid)"
+        " VALUES (?, ?, ?, ?, ?, ?, ?, ?)",
+        [(*r, migrated_uid(created, *r[:4])) for r in rows],
+    )
+    conn.execute(
+        "INSERT INTO history(id, change, at, who, device, action, kind, member, station, entity,"
+        " field, old, new, undone) SELECT id, change, at, who, ?, action, kind, member, station,"
+        " entity, field, old, new, undone FROM history_v2 ORDER BY id",
+        (DEVICE_BEFORE_V3,),
+    )
+    conn.execute("DROP TABLE entity_v2")
+    conn.execute("DROP TABLE history_v2")
+    nxt = conn.execute("SELECT COALESCE(MAX(change), 0) + 1 FROM history").fetchone()[0]
+    conn.execute(
+        "INSERT INTO history(change, at, who, device, action, kind, member, station, entity,"
+        " field, old, new) VALUES (?, ?, 'asfound', ?, 'migrate', 'store', '', '', '',"
+        " 'user_version', '2', '3')",
+        (nxt, at, device),
+    )
+
+
+MIGRATIONS = {1: _v1_to_v2, 2: _v2_to_v3}
+
+
+def migrate(conn: sqlite3.Connection, version: int, at: str, device: str) -> None:
     """Bring an open store from ``version`` to :data:`CURRENT` inside one transaction.
 
     Raises:
@@ -103,7 +172,7 @@ def migrate(conn: sqlite3.Connection, version: int, at: str) -> None:
     conn.execute("BEGIN IMMEDIATE")
     try:
         for v in range(version, CURRENT):
-            MIGRATIONS[v](conn, at)
+            MIGRATIONS[v](conn, at, device)
             conn.execute(f"PRAGMA user_version = {v + 1}")
         conn.execute("COMMIT")
     except BaseException:

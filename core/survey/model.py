@@ -17,7 +17,14 @@ from __future__ import annotations
 import math
 from typing import Any, Literal, get_args
 
-from pydantic import BaseModel, ConfigDict, Field, PrivateAttr, model_validator
+from pydantic import (
+    BaseModel,
+    ConfigDict,
+    Field,
+    PrivateAttr,
+    model_serializer,
+    model_validator,
+)
 
 from core.definition import SectionDefinition, StationLoss
 from core.errors import where as join
@@ -203,6 +210,8 @@ class Reading(_Model):
     ``region`` is ``None`` for the whole part, ``"h"``/``"v"`` for one leg of an angle, or
     the id of a loss band at the same station. ``location`` says where on the part (free
     text), ``face`` which side it was taken from, ``time`` an ISO date-time.
+    ``stored_as_read`` is empty, or the reasons the entry check held the value for (it looked
+    like a slip, see :mod:`core.survey.guard`) when the inspector chose to store it as read.
     """
 
     id: str = Field(min_length=1)
@@ -215,6 +224,15 @@ class Reading(_Model):
     face: str = ""
     time: str = ""
     who: str = ""
+    stored_as_read: str = ""
+
+    @model_serializer(mode="wrap")
+    def _optional_fields(self, handler) -> dict[str, Any]:
+        """``stored_as_read`` is written only when set (older documents stay as they are)."""
+        out = handler(self)
+        if not out.get("stored_as_read"):
+            out.pop("stored_as_read", None)
+        return out
 
     def mm(self, where: str = "") -> float:
         """The reading in mm (raises UnitError for a unit that is not a length)."""

@@ -3,8 +3,12 @@
 * WAL journal, ``synchronous=FULL``, one transaction per entry: an entry reported as saved
   survives a killed process.
 * Nothing is silently overwritten: every add, update and delete writes rows to the
-  ``history`` table (who, when, entity, field, old value, new value); deletes are soft.
-* :meth:`FieldStore.undo_last` reverts the last change and records the undo in history.
+  ``history`` table (who, on which device, when, entity, field, old value, new value);
+  deletes are soft.
+* Each handle belongs to one device (:func:`core.survey.device.this_device` unless given).
+  :meth:`FieldStore.undo_last` reverts the last change of one person on this handle's
+  device, and only when nobody else has changed what it touched since; the undo is a change
+  of its own in the history (see :mod:`core.survey.undo`).
 * The layout version is ``PRAGMA user_version``; older layouts are migrated on open (after
   a backup copy ``<name>.v<N>.bak``), newer ones refused.
 * A file that is not a store, is damaged (fails ``PRAGMA integrity_check``) or is locked by
@@ -29,10 +33,12 @@ from typing import Any
 
 from core.definition import SectionDefinition
 from core.errors import InputError, StoreError
-from core.survey.migrations import CURRENT, STORE_FORMAT, V2_SCHEMA, migrate
+from core.survey.device import check_device, this_device
+from core.survey.migrations import CURRENT, STORE_FORMAT, V3_SCHEMA, migrate
 from core.survey.model import VERSION, Member, Station, Survey, SurveyHeader
 from core.survey.problems import Problem
 from core.survey.storeops import StoreOps, _validated
+from core.survey.undo import UndoOps
 
 _MAGIC = b"SQLite format 3\x00"
 
@@ -47,7 +53,8 @@ class Saved:
 
 @dataclass(frozen=True)
 class HistoryEntry:
-    """One row of the edit history. ``old``/``new`` are the values (None when absent)."""
+    """One row of the edit history. ``old``/``new`` are the values (None when absent);
+    ``device`` the device the change was made on; ``undoes`` the change an undo reverted."""
 
     id: int
     change: int
@@ -62,6 +69,8 @@ class HistoryEntry:
     old: Any
     new: Any
     undone: bool
+    device: str = ""
+    undoes: int | None = None
 
 
 def _now() -> str:
@@ -82,16 +91,19 @@ def _sqlite_error(e: sqlite3.Error, path: Path) -> StoreError:
     return StoreError(f"{path}: the store is damaged or not an asfound store ({msg})")
 
 
-class FieldStore(StoreOps):
-    """An open field store. Create with :meth:`create`, open with :meth:`open`."""
+class FieldStore(StoreOps, UndoOps):
+    """An open field store of one device. Create with :meth:`create`, open with :meth:`open`."""
 
-    def __init__(self, conn: sqlite3.Connection, path: Path) -> None:
+    def __init__(self, conn: sqlite3.Connection, path: Path, device: str) -> None:
         self._conn = conn
         self.path = path
+        self.device = device
         self._lock = threading.RLock()
         self._change: int | None = None
         self._defs: dict[str, tuple[str, Member, SectionDefinition]] = {}
         self._who = ""
+        self._undoes: int | None = None
+        self._checks: dict[tuple[str, str], list] = {}
 
     # ----------------------------------------------------------------- open / create
     @classmethod
@@ -103,13 +115,17 @@ class FieldStore(StoreOps):
         note: str = "",
         who: str = "",
         timeout: float = 2.0,
+        device: str | None = None,
     ) -> FieldStore:
-        """Create a new store at ``path`` (which must not exist) for a survey header.
+        """Create a new store at ``path`` (which must not exist) for a survey header;
+        ``device`` (default: this device) is the device of every change made through it.
 
         Raises:
-            StoreError: the file exists or cannot be written; InputError: invalid header.
+            StoreError: the file exists or cannot be written; InputError: invalid header or
+            device id.
         """
         p = Path(path)
+        dev = check_device(device) if device is not None else this_device()
         hdr = (
             survey_header
             if isinstance(survey_header, SurveyHeader)
@@ -123,7 +139,7 @@ class FieldStore(StoreOps):
             conn.execute("PRAGMA journal_mode=WAL")
             conn.execute("PRAGMA synchronous=FULL")
             conn.execute("BEGIN IMMEDIATE")
-            for stmt in V2_SCHEMA.split(";"):
+            for stmt in V3_SCHEMA.split(";"):
                 if stmt.strip():
                     conn.execute(stmt)
             conn.executemany(
@@ -144,21 +160,26 @@ class FieldStore(StoreOps):
             for extra in (p, Path(f"{p}-wal"), Path(f"{p}-shm")):
                 extra.unlink(missing_ok=True)  # the half-made file is ours: remove it
             raise _sqlite_error(e, p) from None
-        store = cls(conn, p)
-        with store._txn(who, "add"):
+        store = cls(conn, p, dev)
+        with store._txn(who):
             store._history(
                 "create", "survey", "", "", hdr.id, "*", None, hdr.model_dump(mode="json")
             )
         return store
 
     @classmethod
-    def open(cls, path: str | Path, *, timeout: float = 2.0) -> FieldStore:
+    def open(
+        cls, path: str | Path, *, timeout: float = 2.0, device: str | None = None
+    ) -> FieldStore:
         """Open an existing store; migrate an older layout; refuse a damaged or locked file.
+        ``device`` (default: this device) is the device of every change made through it.
 
         Raises:
-            StoreError: missing, not a store, damaged, newer layout, or locked.
+            StoreError: missing, not a store, damaged, newer layout, or locked; InputError:
+            an invalid device id.
         """
         p = Path(path)
+        dev = check_device(device) if device is not None else this_device()
         if not p.is_file():
             raise StoreError(f"{p}: no such store file")
         with p.open("rb") as f:
@@ -197,7 +218,7 @@ class FieldStore(StoreOps):
             conn.execute("PRAGMA journal_mode=WAL")
             conn.execute("PRAGMA synchronous=FULL")
             if ver < CURRENT:
-                migrate(conn, ver, _now())
+                migrate(conn, ver, _now(), dev)
             conn.execute("BEGIN IMMEDIATE")
             conn.execute("COMMIT")
         except StoreError:
@@ -206,7 +227,7 @@ class FieldStore(StoreOps):
         except sqlite3.Error as e:
             conn.close()
             raise _sqlite_error(e, p) from None
-        return cls(conn, p)
+        return cls(conn, p, dev)
 
     def close(self) -> None:
         """Close the store (every entry is already committed)."""
@@ -221,7 +242,7 @@ class FieldStore(StoreOps):
 
     # ----------------------------------------------------------------- transactions
     @contextmanager
-    def _txn(self, who: str, action: str = "") -> Iterator[int]:
+    def _txn(self, who: str) -> Iterator[int]:
         """One transaction and one change id; nested calls join the outer transaction."""
         with self._lock:
             if self._change is not None:
@@ -234,6 +255,8 @@ class FieldStore(StoreOps):
                 ).fetchone()[0]
                 self._who = who
                 yield self._change
+                for (member, station), known in self._checks.items():
+                    self._check_station(member, station, known)
                 self._conn.execute("COMMIT")
             except sqlite3.Error as e:
                 self._rollback()
@@ -243,6 +266,8 @@ class FieldStore(StoreOps):
                 raise
             finally:
                 self._change = None
+                self._undoes = None
+                self._checks = {}
 
     def _rollback(self) -> None:
         if self._conn.in_transaction:
@@ -257,12 +282,13 @@ class FieldStore(StoreOps):
 
     def _history(self, action, kind, member, station, entity, field, old, new) -> None:
         self._conn.execute(
-            "INSERT INTO history(change, at, who, action, kind, member, station, entity, field,"
-            " old, new) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)",
+            "INSERT INTO history(change, at, who, device, action, kind, member, station, entity,"
+            " field, old, new, undoes) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)",
             (
                 self._change,
                 _now(),
                 self._who,
+                self.device,
                 action,
                 kind,
                 member,
@@ -271,16 +297,18 @@ class FieldStore(StoreOps):
                 field,
                 None if old is None else json.dumps(old),
                 None if new is None else json.dumps(new),
+                self._undoes if action == "undo" else None,
             ),
         )
 
     # ----------------------------------------------------------------- reading back
-    def history(self) -> list[HistoryEntry]:
-        """Every history row, oldest first."""
+    def history(self, since_change: int = 0) -> list[HistoryEntry]:
+        """Every history row (of changes from ``since_change`` on), oldest first."""
         with self._lock:
             rows = self._conn.execute(
                 "SELECT id, change, at, who, action, kind, member, station, entity, field, old,"
-                " new, undone FROM history ORDER BY id"
+                " new, undone, device, undoes FROM history WHERE change >= ? ORDER BY id",
+                (since_change,),
             ).fetchall()
         return [
             HistoryEntry(
@@ -288,6 +316,8 @@ class FieldStore(StoreOps):
                 None if r[10] is None else json.loads(r[10]),
                 None if r[11] is None else json.loads(r[11]),
                 bool(r[12]),
+                r[13],
+                r[14],
             )
             for r in rows
         ]
@@ -316,21 +346,23 @@ class FieldStore(StoreOps):
         except ValueError as e:
             raise StoreError(f"{self.path}: a {kind} entry is damaged ({e})") from None
 
+    def _with_stations(self, m: dict) -> dict:
+        """A member entry with its live stations and their entries (document objects)."""
+        stations = []
+        for s in self._rows("station", m["id"], ""):
+            for kind, key in (
+                ("reading", "readings"),
+                ("band", "bands"),
+                ("perforation", "perforations"),
+            ):
+                s[key] = self._rows(kind, m["id"], s["id"])
+            stations.append(s)
+        return {**m, "stations": stations}
+
     def to_survey(self) -> Survey:
         """The whole survey as a model (entries in the order they were made)."""
         with self._lock:
-            members = []
-            for m in self._rows("member"):
-                stations = []
-                for s in self._rows("station", m["id"], ""):
-                    for kind, key in (
-                        ("reading", "readings"),
-                        ("band", "bands"),
-                        ("perforation", "perforations"),
-                    ):
-                        s[key] = self._rows(kind, m["id"], s["id"])
-                    stations.append(s)
-                members.append({**m, "stations": stations})
+            members = [self._with_stations(m) for m in self._rows("member")]
             doc = {
                 "format": "asfound.survey",
                 "version": VERSION,

@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import datetime as _dt
 import json
+import uuid
 from typing import TYPE_CHECKING, Any
 
 from pydantic import ValidationError
@@ -28,10 +29,9 @@ from core.survey.problems import Problem, raise_errors
 from core.survey.validate import check_member, check_station
 
 if TYPE_CHECKING:
-    from core.survey.store import HistoryEntry, Saved
+    from core.survey.store import Saved
 
 _NESTED = ("readings", "bands", "perforations")
-UNDOABLE = ("add", "update", "delete")
 
 
 def _validated(cls, data: Any, what: str, where: str = ""):
@@ -81,8 +81,9 @@ class StoreOps:
             )
         seq = self._conn.execute("SELECT COALESCE(MAX(seq), 0) + 1 FROM entity").fetchone()[0]
         self._conn.execute(
-            "INSERT INTO entity(kind, member, station, id, seq, data) VALUES (?, ?, ?, ?, ?, ?)",
-            (kind, member, station, ident, seq, json.dumps(data)),
+            "INSERT INTO entity(kind, member, station, id, seq, data, uid)"
+            " VALUES (?, ?, ?, ?, ?, ?, ?)",
+            (kind, member, station, ident, seq, json.dumps(data), uuid.uuid4().hex),
         )
         self._history("add", kind, member, station, ident, "*", None, data)
 
@@ -103,8 +104,28 @@ class StoreOps:
     def _delete(self, kind: str, member: str, station: str, ident: str, who: str) -> None:
         with self._txn(who):
             data = self._get(kind, member, station, ident)
+            if station:
+                self._check_later(member, station)
             self._set_deleted(kind, member, station, ident, 1)
             self._history("delete", kind, member, station, ident, "*", data, None)
+
+    def _check_later(self, member_id: str, station_id: str) -> None:
+        """Check the station when the transaction ends (a batch may withdraw a band's
+        readings and then the band): no error that it did not have before."""
+        key = (member_id, station_id)
+        if key not in self._checks:
+            self._checks[key] = self._station_errors(member_id, station_id)
+
+    def _station_errors(self, member_id: str, station_id: str) -> list[Problem]:
+        m, defn = self._member_and_definition(member_id)
+        st = self.station(member_id, station_id)
+        return [p for p in check_station(m, defn, st, m.span_mm()) if p.level == "error"]
+
+    def _check_station(self, member_id: str, station_id: str, known=()) -> None:
+        """Raise the errors of a station as stored that are not among ``known`` (e.g. a band
+        left without a thickness once its only reading is withdrawn)."""
+        new = [p for p in self._station_errors(member_id, station_id) if p not in known]
+        raise_errors(new, f"station {station_id!r}")
 
     def _saved(self, ident: str, probs: list[Problem]) -> Saved:
         from core.survey.store import Saved
@@ -140,14 +161,21 @@ class StoreOps:
             return self._saved(m.id, probs)
 
     def update_member(self, member_id: str, changes: dict, who: str) -> Saved:
-        """Change fields of a member (label, span, do, section, rivets, simple_span)."""
+        """Change fields of a member (label, span, do, section, rivets, simple_span).
+
+        A new section or span is checked with the member's stations: a change that leaves
+        a reading on a part that no longer exists, or a station beyond the member, is refused.
+        """
         with self._txn(who):
-            data = {**self._get("member", member_id, "", member_id), **changes}
+            current = self._get("member", member_id, "", member_id)
+            data = {**current, **changes}
             if data.get("id") != member_id:
                 raise InputError("a member id cannot be changed", where=_place(member_id, ""))
             m = self._member_model(data)
             probs = check_member(m)
             raise_errors(probs, f"member {member_id!r}")
+            if any(data.get(k) != current.get(k) for k in ("section", "span")):
+                self._check_with_stations(member_id, data, self._member_errors(member_id))
             dump = m.model_dump(mode="json")
             dump.pop("stations")
             self._update("member", member_id, "", member_id, dump)
@@ -156,6 +184,19 @@ class StoreOps:
     def _member_model(self, data: dict):
         doc = {"survey": self.header(), "members": [{**data, "stations": []}]}
         return _validated(Survey, doc, "member").members[0]
+
+    def _member_errors(self, member_id: str, data: dict | None = None) -> list[Problem]:
+        """The errors of a member (``data``, default: as stored) with its stations."""
+        m = data if data is not None else self._get("member", member_id, "", member_id)
+        full = self._with_stations({**m, "id": member_id})
+        doc = {"survey": self.header(), "members": [full]}
+        model = _validated(Survey, doc, f"member {member_id!r}").members[0]
+        return [p for p in check_member(model) if p.level == "error"]
+
+    def _check_with_stations(self, member_id: str, data: dict | None = None, known=()) -> None:
+        """Raise the errors of a member with its stations that are not among ``known``."""
+        new = [p for p in self._member_errors(member_id, data) if p not in known]
+        raise_errors(new, f"member {member_id!r}")
 
     def set_rivet_state(
         self, member_id: str, line: str, position: float, state: str, who: str
@@ -268,6 +309,7 @@ class StoreOps:
             r = _validated(Reading, data, "reading", _place(member_id, station_id))
             probs = check_reading(m, defn, st, r)
             raise_errors(probs, f"reading {reading_id!r}")
+            self._check_later(member_id, station_id)
             self._update("reading", member_id, station_id, reading_id, r.model_dump(mode="json"))
             return self._saved(reading_id, probs)
 
@@ -289,6 +331,34 @@ class StoreOps:
     def delete_perforation(self, member_id: str, station_id: str, perf_id: str, who: str) -> None:
         self._delete("perforation", member_id, station_id, perf_id, who)
 
+    def update_cut(
+        self, kind: str, member_id: str, station_id: str, ident: str, changes: dict, who: str
+    ) -> Saved:
+        """Correct a loss band or a perforation (limits, thickness, part, note); the old
+        values go to history. Readings on a band keep their region.
+
+        Raises:
+            InputError: unknown entry, a value out of its plate, or ``kind`` unknown.
+        """
+        cls = {"band": Band, "perforation": Perforation}.get(kind)
+        if cls is None:
+            raise InputError(f"{kind!r} is not 'band' or 'perforation'")
+        with self._txn(who):
+            data = {**self._get(kind, member_id, station_id, ident), **changes}
+            if data["id"] != ident:
+                raise InputError(
+                    f"a {kind} id cannot be changed", where=_place(member_id, station_id)
+                )
+            m, defn = self._member_and_definition(member_id)
+            b = _validated(cls, data, kind, _place(member_id, station_id))
+            st = self.station(member_id, station_id)
+            good = {(r.part, r.region): [1.0] for r in st.readings}
+            probs = check_cut(m, defn, kind, b, m.place(station_id), m.length_unit, good)
+            raise_errors(probs, f"{kind} {ident!r}")
+            self._check_later(member_id, station_id)
+            self._update(kind, member_id, station_id, ident, b.model_dump(mode="json"))
+            return self._saved(ident, probs)
+
     def _add_cut(self, kind, cls, member_id, station_id, item, who) -> Saved:
         with self._txn(who):
             data = dict(item)
@@ -305,45 +375,24 @@ class StoreOps:
             self._insert(kind, member_id, station_id, b.id, b.model_dump(mode="json"))
             return self._saved(b.id, probs)
 
+    def used_ids(self, kind: str, member: str, station: str = "") -> set[str]:
+        """Every id of ``kind`` ever used at that place, withdrawn ones included (an id is
+        never used twice)."""
+        with self._lock:
+            return {
+                r[0]
+                for r in self._conn.execute(
+                    "SELECT id FROM entity WHERE kind = ? AND member = ? AND station = ?",
+                    (kind, member, station),
+                )
+            }
+
     def _next_id(self, kind: str, member: str, station: str, prefix: str) -> str:
-        used = {
-            r[0]
-            for r in self._conn.execute(
-                "SELECT id FROM entity WHERE kind = ? AND member = ? AND station = ?",
-                (kind, member, station),
-            )
-        }
+        used = self.used_ids(kind, member, station)
         n = len(used) + 1
         while f"{prefix}{n}" in used:
             n += 1
         return f"{prefix}{n}"
-
-    # ------------------------------------------------------------- undo
-    def undo_last(self, who: str) -> list[HistoryEntry]:
-        """Revert the last change not yet undone (an add, update or delete), record the undo
-        in the history, and return the history rows of the change reverted ([] if none)."""
-        with self._txn(who):
-            c = self._conn.execute(
-                "SELECT MAX(change) FROM history WHERE undone = 0 AND action IN (?, ?, ?)",
-                UNDOABLE,
-            ).fetchone()[0]
-            if c is None:
-                return []
-            rows = [h for h in self.history() if h.change == c]
-            for h in reversed(rows):
-                key = (h.kind, h.member, h.station, h.entity)
-                if h.action == "add":
-                    self._set_deleted(*key, 1)
-                elif h.action == "delete":
-                    self._set_deleted(*key, 0)
-                else:
-                    data = self._load(*key)
-                    data[h.field] = h.old
-                    self._save(*key, data)
-                self._history("undo", *key, h.field, h.new, h.old)
-            self._conn.execute("UPDATE history SET undone = 1 WHERE change = ?", (c,))
-            self._defs.clear()
-            return rows
 
 
 def _place(member: str, station: str) -> str:

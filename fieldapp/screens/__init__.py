@@ -3,13 +3,15 @@
 from kivy.uix.boxlayout import BoxLayout
 
 from fieldapp.drawing import SectionView
-from fieldapp.pad import NumPad
+from fieldapp.pad import FitLabel, NumPad, PadPanel, PadSheet
 from fieldapp.rivetmap import Overview, StretchAxis
+from fieldapp.screens.entries import EntryRow
 from fieldapp.screens.member import MemberScreen
 from fieldapp.screens.results import ResultsScreen
 from fieldapp.screens.rivets import RivetsScreen
 from fieldapp.screens.station import StationScreen
 from fieldapp.screens.surveys import SurveysScreen
+from fieldapp.sheets import ConfirmSheet
 
 
 class Root(BoxLayout):
@@ -17,9 +19,14 @@ class Root(BoxLayout):
 
 
 __all__ = [
+    "ConfirmSheet",
+    "EntryRow",
+    "FitLabel",
     "MemberScreen",
     "NumPad",
     "Overview",
+    "PadPanel",
+    "PadSheet",
     "ResultsScreen",
     "RivetsScreen",
     "Root",

@@ -1,13 +1,14 @@
-"""Member: the as-built section (main dimensions of the girder template, with a drawing
-that follows the typing), the member's stations, and new stations."""
+"""Member: the as-built section (main dimensions of the girder template, typed on the pad,
+with a drawing that follows the typing), the member's stations, and new stations."""
 
 from __future__ import annotations
 
 from functools import partial
 
 from kivy.app import App
-from kivy.clock import Clock
 from kivy.factory import Factory
+from kivy.metrics import dp
+from kivy.properties import StringProperty
 from kivy.uix.boxlayout import BoxLayout
 from kivy.uix.screenmanager import Screen
 
@@ -17,22 +18,24 @@ from core.sectionfile import definition_from_dict
 from core.units import show
 from fieldapp import present, templates
 from fieldapp.session import parse_number
+from fieldapp.theme import TOUCH_DP
 
 
 class MemberScreen(Screen):
+    next_id = StringProperty("name (or S2)")
+    position_unit = StringProperty("m")
+
     def __init__(self, **kw) -> None:
         super().__init__(**kw)
         self.fields: dict = {}
         self._stored: dict = {}
-        self._preview_soon = Clock.create_trigger(self.preview, 0)
 
     def on_kv_post(self, _base) -> None:
         for key, label in templates.GIRDER_FIELDS:
-            row = BoxLayout(size_hint_y=None, height=self.ids.form.row_height, spacing=8)
-            lab = Factory.Body(text=label, size_hint_x=0.64)
-            f = Factory.Field(input_filter="float", size_hint_x=0.36)
-            f.bind(text=self._typed, on_text_validate=self._commit)
-            f.bind(focus=self._focus)
+            row = BoxLayout(size_hint_y=None, height=dp(TOUCH_DP), spacing=dp(8))
+            lab = Factory.Body(text=label)
+            f = Factory.NumberField(size_hint_x=None, width=dp(150))
+            f.bind(on_press=partial(self.ask_value, key))
             row.add_widget(lab)
             row.add_widget(f)
             self.ids.form.add_widget(row)
@@ -46,17 +49,19 @@ class MemberScreen(Screen):
         m = s.member()
         unit = s.length_unit
         girder = m.section.get("girder")
-        self.ids.title.text = f"Member {m.id}" + (f" - {m.label}" if m.label else "")
-        self.ids.span.text = f"span {m.span.value:g} {m.span.unit}"
+        label = f"  ·  {m.label}" if m.label else ""
+        self.ids.title.text = f"Member {m.id}{label}  ·  span {m.span.value:g} {m.span.unit}"
         self._stored = templates.girder_values(girder) if girder else {}
         for key, (lab, f, label) in self.fields.items():
             lab.text = f"{label} ({unit})"
             v = self._stored.get(key)
-            f.text = "" if v is None else f"{v:g}"
+            f.value, f.unit = ("" if v is None else f"{v:g}"), unit
             f.disabled = girder is None
         self.ids.message.level = "info" if girder else "warn"
         self.ids.message.text = (
-            "" if girder else "This section is not from the girder template; edit it in the office."
+            "Tap a value to type it on the pad; it is stored when you press Enter."
+            if girder
+            else "This section is not from the girder template; edit it in the office."
         )
         self._members(s)
         self._stations(s)
@@ -77,28 +82,33 @@ class MemberScreen(Screen):
         m = s.store.to_survey().member(s.member_id)
         for st in m.stations:
             b = Factory.Big(
-                text=f"{st.id}  at {st.position:g} {s.position_unit}", chosen=st.id == s.station_id
+                text=f"{st.id} at {st.position:g} {s.position_unit}",
+                chosen=st.id == s.station_id,
+                font_size="18sp",
             )
             b.bind(on_press=partial(self._pick_station, st.id))
             box.add_widget(b)
-        self.ids.new_pos_label.text = f"position ({s.position_unit})"
+        self.position_unit = s.position_unit
+        self.next_id = f"name (or {s.next_station_id()})"
 
-    def values(self) -> dict:
-        out = {}
-        for key, (_lab, f, label) in self.fields.items():
-            out[key] = parse_number(f.text, label) if f.text.strip() else None
+    def values(self, key: str | None = None, text: str | None = None) -> dict:
+        """The stored values, with ``key`` set to the number typed as ``text``."""
+        out = dict(self._stored)
+        if key is not None and text is not None:
+            label = dict(templates.GIRDER_FIELDS)[key]
+            out[key] = parse_number(text, label) if text.strip() else None
         return out
 
-    def preview(self, *_a) -> None:
-        """Redraw the section from the values as typed (core builds it; nothing is stored)."""
+    def preview(self, values: dict | None = None) -> None:
+        """Draw the section of ``values`` (default: as stored); core builds it."""
         app = App.get_running_app()
         s = app.session
         if s is None or not s.member_id:
             return
         try:
             sec = dict(s.member().section)
-            if sec.get("girder") is not None:
-                sec["girder"] = templates.with_values(sec["girder"], self.values())
+            if sec.get("girder") is not None and values is not None:
+                sec["girder"] = templates.with_values(sec["girder"], values)
             built = analyse(definition_from_dict(sec, s.length_unit))
         except (AsfoundError, ValueError) as e:
             self.ids.check.level = "error"
@@ -115,27 +125,41 @@ class MemberScreen(Screen):
         self.ids.drawing.found = built.gross.pieces
 
     # ------------------------------------------------------------------ entries
-    def _typed(self, *_a) -> None:
-        self._preview_soon()
+    def ask_value(self, key: str, *_a) -> None:
+        """The pad for one dimension; the drawing follows the typing."""
+        app = App.get_running_app()
+        _lab, f, label = self.fields[key]
+        unit = app.session.length_unit
 
-    def _focus(self, field, focused: bool) -> None:
-        if not focused:
-            self._commit(field)
+        def typed(text):
+            try:
+                self.preview(self.values(key, text) if text is not None else None)
+            except AsfoundError as e:
+                self.ids.check.level, self.ids.check.text = "error", str(e)
 
-    def _commit(self, *_a) -> None:
-        """Store the dimensions when they differ from the stored ones."""
+        app.ask_number(
+            f"{label} ({unit}) of member {app.session.member_id}",
+            f.value,
+            unit,
+            partial(self.store_value, key),
+            typed=typed,
+        )
+
+    def store_value(self, key: str, text: str) -> str:
+        """Store one dimension; an error sentence, or "" when stored."""
         app = App.get_running_app()
         try:
-            vals = self.values()
+            vals = self.values(key, text)
+            if vals == self._stored:
+                return ""
+            saved = app.session.update_girder(vals)
         except AsfoundError as e:
-            app.tell(str(e), "error")
-            return
-        if app.session is None or not self._stored or vals == self._stored:
-            return
-        saved = app.guard(lambda: app.session.update_girder(vals))
-        if saved is not None:
-            self._stored = vals
-            app.entry_done("section dimensions", saved.warnings)
+            return str(e)
+        self._stored = vals
+        label = dict(templates.GIRDER_FIELDS)[key]
+        app.entry_done(f"{label.lower()} {text} {app.session.length_unit}", saved.warnings)
+        self.refresh()
+        return ""
 
     def _pick_member(self, mid: str, *_a) -> None:
         app = App.get_running_app()
@@ -149,12 +173,27 @@ class MemberScreen(Screen):
         app.go("station")
         app.refresh_results()
 
-    def add_station(self) -> None:
+    def ask_position(self) -> None:
+        """The pad for the position of a new station; Enter adds it."""
         app = App.get_running_app()
-        saved = app.guard(
-            lambda: app.session.add_station(self.ids.new_id.text, self.ids.new_pos.text)
+        s = app.session
+        span = s.member().span
+        name = self.ids.new_id.text.strip() or s.next_station_id()
+        app.ask_number(
+            f"Position of new station {name} ({s.position_unit} from the member's start)",
+            "",
+            s.position_unit,
+            partial(self.add_station, name),
+            hint=f"The member is {span.value:g} {span.unit} long.",
         )
-        if saved is not None:
-            self.ids.new_id.text = self.ids.new_pos.text = ""
-            app.entry_done(f"station {saved.id}", saved.warnings)
-            app.go("station")
+
+    def add_station(self, name: str, position: str) -> str:
+        app = App.get_running_app()
+        try:
+            saved = app.session.add_station(name, position)
+        except AsfoundError as e:
+            return str(e)
+        self.ids.new_id.text = ""
+        app.entry_done(f"station {saved.id}", saved.warnings)
+        app.go("station")
+        return ""

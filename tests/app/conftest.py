@@ -90,12 +90,27 @@ class Driver:
         app = self.app
         self.until(lambda: app.result is not None or bool(app.result_error), timeout=10.0)
 
-    def shot(self, name: str) -> Path:
-        """Write the whole window to tests/_artifacts/screens/<name>.png."""
+    def shot(self, name: str, window: bool = False) -> Path:
+        """Write the app (or, with ``window``, everything on the window, sheets included)
+        to tests/_artifacts/screens/<name>.png."""
+        from kivy.core.window import Window
+
         SHOTS.mkdir(parents=True, exist_ok=True)
         self.pump(0.1)
         path = SHOTS / f"{name}.png"
-        self.app.root.export_to_png(str(path))
+        if window:  # the app and the sheets over it, composed bottom first
+            from PIL import Image
+
+            canvas = Image.new("RGBA", (int(Window.width), int(Window.height)), "white")
+            for i, w in enumerate(reversed(Window.children)):
+                part = path.with_name(f".{path.stem}-{i}.png")
+                w.export_to_png(str(part))
+                layer = Image.open(part).convert("RGBA")
+                canvas.alpha_composite(layer, (0, int(Window.height) - layer.height))
+                part.unlink()
+            canvas.convert("RGB").save(path)
+        else:
+            self.app.root.export_to_png(str(path))
         return path
 
 

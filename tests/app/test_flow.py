@@ -13,36 +13,21 @@ import pytest
 from core.assess import assess
 from core.survey import FieldStore
 from core.units import show
+from fieldapp.names import readable
 from fieldapp.places import store_files
 from tests.app.conftest import stop
+from tests.app.helpers import (
+    answer,
+    enter_reading,
+    key,
+    nav,
+    new_survey,
+    station,
+    tap_part,
+    type_on,
+)
 
 pytestmark = pytest.mark.gui
-
-
-def nav(d, name):
-    bar = d.app.root.children[-1]
-    return next(b for b in bar.children if getattr(b, "screen", None) == name)
-
-
-def pad_key(d, label):
-    pad = d.screen("station").ids.pad
-    return next(w for w in pad.walk() if getattr(w, "text", None) == label and w is not pad)
-
-
-def tap_part(d, part_id):
-    """Tap the middle of a part on the station drawing."""
-    view = d.screen("station").ids.drawing
-    i = view.built.part_ids.index(part_id)
-    rect = view.built.rects[view.built.owner == i][0]
-    x, y, w, h = view._px(rect)
-    d.tap_at(*view.to_window(x + w / 2, y + h / 2))
-
-
-def new_survey(d, name="Test girders"):
-    surveys = d.screen("surveys")
-    surveys.ids.new_id.text = name
-    d.tap(surveys.ids.start)
-    d.results_settled()
 
 
 def test_create_enter_mark_undo_and_reopen(field, tmp_path):
@@ -52,34 +37,36 @@ def test_create_enter_mark_undo_and_reopen(field, tmp_path):
     assert app.screen == "member"
     (path,) = store_files(tmp_path)
 
-    # member set-up: the drawing follows the typing; the value is stored on Enter
+    # member set-up on the pad over the screen: the drawing follows the typing, Enter stores
     member = d.screen("member")
     before = member.ids.drawing.built
-    _label, tw_field, _ = member.fields["tw"]
-    tw_field.text = "12"
-    d.pump(0.1)
-    assert member.ids.drawing.built is not before
-    assert "Ix" in member.ids.check.text
-    tw_field.dispatch("on_text_validate")
+    d.tap(member.fields["tw"][1])
+    panel = app.sheet.panel
+    d.tap(panel.ids.clear_btn)
+    type_on(d, "12", panel)
+    assert member.ids.drawing.built is not before and "Ix" in member.ids.check.text
+    assert app.session.member().section["girder"]["tw"] == 10.0  # nothing stored yet
+    d.tap(key(d, "Enter", panel))
+    assert not app.sheet.is_open
     assert app.session.member().section["girder"]["tw"] == 12.0
+    assert member.fields["tw"][1].value == "12"
 
     # station: tap the web on the drawing, type on the pad, Enter
     d.tap(nav(d, "station"))
-    station = d.screen("station")
+    st = station(d)
     tap_part(d, "web")
-    assert station.part == "web"
+    assert st.part == "web"
     for value in ("9.5", "8.25", "10.5"):
-        for ch in value:
-            d.tap(pad_key(d, ch))
-        assert station.ids.pad.text == value
-        d.tap(station.ids.pad.ids.enter)
-        d.until(lambda: station.ids.pad.text == "")  # cleared with the new result
+        enter_reading(d, value)
     assert "saved reading r3" in app.status
-    # 10.5 mm on a 12 mm web is fine; 0.4 mm looks like inches typed as mm: warned inline
-    for ch in "0.4":
-        d.tap(pad_key(d, ch))
-    assert "unit slip" in station.ids.warning.text
-    d.tap(pad_key(d, "Clear"))
+    # 0.4 mm on a 12 mm web is held (below 20 % of nominal): nothing stored; Fix clears it
+    type_on(d, "0.4")
+    d.tap(key(d, "Enter"))
+    assert st.ids.pad.held and "did you mean 4 mm?" in st.ids.pad.message
+    assert len(app.session.station().readings) == 3
+    d.tap(st.ids.pad.ids.no)
+    assert not st.ids.pad.held and st.ids.pad.text == ""
+    assert len(app.session.station().readings) == 3
 
     # rivets: tap the first rivet of the bottom web line twice
     d.tap(nav(d, "rivets"))
@@ -90,13 +77,19 @@ def test_create_enter_mark_undo_and_reopen(field, tmp_path):
     assert dot.state_name == "loose" and dot.text == "L"
     d.tap(dot)
     assert dot.state_name == "missing" and dot.text == "M"
-    states = dict(app.session.rivet_line_states("web_bottom"))
-    assert states[dot.position] == "missing"
+    assert dict(app.session.rivet_line_states("web_bottom"))[dot.position] == "missing"
 
-    # undo the last change: the rivet goes back to loose
+    # undo says exactly what it will undo, and does it only when asked
     d.tap(app.root.ids.undo)
+    assert (
+        app.confirm.text == f"Undo rivet web, bottom at {dot.position:g} m: loose -> missing on G1?"
+    )
+    answer(d, yes=False)
+    assert dict(app.session.rivet_line_states("web_bottom"))[dot.position] == "missing"
+    d.tap(app.root.ids.undo)
+    answer(d)
     assert dict(app.session.rivet_line_states("web_bottom"))[dot.position] == "loose"
-    assert "undone" in app.status
+    assert app.status.startswith("undone: rivet web, bottom")
 
     # results shown equal core's numbers for the survey in the store
     d.tap(nav(d, "results"))
@@ -111,8 +104,8 @@ def test_create_enter_mark_undo_and_reopen(field, tmp_path):
     assert s is not None and s.path == path
     assert (s.member_id, s.station_id, d2.app.screen) == ("G1", "S1", "results")
     with FieldStore.open(path) as store:
-        st = store.station("G1", "S1")
-        assert [(r.id, r.value, r.unit) for r in st.readings] == [
+        stored = store.station("G1", "S1")
+        assert [(r.id, r.value, r.unit) for r in stored.readings] == [
             ("r1", 9.5, "mm"),
             ("r2", 8.25, "mm"),
             ("r3", 10.5, "mm"),
@@ -130,7 +123,7 @@ def check_results_table(d, store) -> None:
     rows = [cells[i : i + 5] for i in range(0, len(cells), 5)]
     assert len(rows) == len(sr.limit_states)
     for (name, built, found, ratio, rf), ls in zip(rows, sr.limit_states, strict=True):
-        assert name == ls.name
+        assert name == readable(ls.name)
         assert ratio == (f"{ls.ratio:.3f}" if ls.ratio is not None else "-")
         assert rf == (f"{ls.RF:.2f}" if ls.RF is not None else "-")
         for text, value in ((built, ls.C_built), (found, ls.C_found)):
@@ -142,7 +135,7 @@ def check_results_table(d, store) -> None:
             assert number == pytest.approx(shown.value, rel=5e-3, abs=0.5)
             assert text.endswith(shown.symbol)
     worst = max(sr.flags, key=lambda f: f.level)
-    assert worst.message in d.screen("results").ids.worst.text
+    assert readable(worst.message) in d.screen("results").ids.worst.text
     assert app.caution
 
 
@@ -153,23 +146,31 @@ def test_keyboard_enter_commits_and_escape_closes_the_pad(field, tmp_path):
     app = d.app
     new_survey(d, "Keys")
     d.tap(nav(d, "station"))
-    station = d.screen("station")
-    station.choose_part("angle_bl")
+    st = station(d)
+    st.choose_part("angle_bl")
     for ch in "11.5":
         Window.dispatch("on_key_down", 0, 0, ch, [])
-    assert station.ids.pad.text == "11.5"
+    assert st.ids.pad.text == "11.5"
     Window.dispatch("on_key_down", 13, 36, "", [])  # Enter
     Window.dispatch("on_key_down", 13, 36, "", [])  # a second Enter before the screen caught up
-    assert station.last_saved == "r1"
+    assert st.last_saved == "r1"
     assert [r.value for r in app.session.station().readings] == [11.5]  # stored once
-    d.until(lambda: station.ids.pad.text == "")
-    # an empty entry is refused inline; nothing is stored and the pad stays open
+    d.until(lambda: st.ids.pad.text == "")
+    # an empty entry is refused in the pad's slot; nothing is stored and the pad stays open
     Window.dispatch("on_key_down", 13, 36, "", [])
-    assert station.ids.warning.level == "error"
-    assert "no value" in station.ids.warning.text
+    assert st.ids.pad.level == "error" and "no value" in st.ids.pad.message
     assert len(app.session.station().readings) == 1
+    # a held value takes no keys until a choice is made
+    for ch in "150":
+        Window.dispatch("on_key_down", 0, 0, ch, [])
+    Window.dispatch("on_key_down", 13, 36, "", [])
+    assert st.ids.pad.held
+    Window.dispatch("on_key_down", 0, 0, "7", [])
+    Window.dispatch("on_key_down", 13, 36, "", [])
+    assert st.ids.pad.text == "150" and len(app.session.station().readings) == 1
     Window.dispatch("on_key_down", 27, 9, "", [])  # Escape closes the pad, not the app
-    assert station.part == ""
+    assert st.part == "" and not st.ids.pad.held
+    assert len(app.session.station().readings) == 1
     assert app.session is not None and app.root.parent is not None
 
 
@@ -178,32 +179,37 @@ def test_band_hole_note_and_photo_are_stored(field, tmp_path):
     app = d.app
     new_survey(d, "Forms")
     d.tap(nav(d, "station"))
-    station = d.screen("station")
-    station.choose_part("web")
-    station.set_mode("band")
-    ids = station.ids
-    ids.band_lo.text, ids.band_hi.text, ids.band_t.text = "250", "400", "6"
-    station.add_band()
-    station.set_mode("hole")
-    ids.hole_lo.text, ids.hole_hi.text = "300", "340"
-    station.add_hole()
-    station.set_mode("notes")
-    ids.notes.text = "pack rust <b>& flaking</b> at the bottom angles"
-    station.keep_note()
-    ids.photo.text = "/sdcard/DCIM/IMG_0412.jpg"
-    station.add_photo()
-    st = app.session.station()
-    assert [(b.part, b.lo, b.hi, b.t) for b in st.bands] == [("web", 250.0, 400.0, 6.0)]
-    assert [(p.part, p.lo, p.hi) for p in st.perforations] == [("web", 300.0, 340.0)]
-    assert st.notes == "pack rust <b>& flaking</b> at the bottom angles"
-    assert st.photos == ["IMG_0412.jpg"]  # the file name only
+    st = station(d)
+    tap_part(d, "web")
+    d.tap(st.ids.tabs.children[-2])  # Band
+    assert st.mode == "band" and st.ids.pad.action_text == "Add band"
+    type_on(d, "250")
+    d.tap(key(d, "Enter"))  # to the next field
+    type_on(d, "400")
+    d.tap(key(d, "Enter"))
+    type_on(d, "6")
+    d.tap(st.ids.pad.ids.yes)  # Add band
+    d.tap(st.ids.tabs.children[-3])  # Hole
+    type_on(d, "300")
+    d.tap(key(d, "Enter"))
+    type_on(d, "340")
+    d.tap(key(d, "Enter"))  # Enter on the last field adds it
+    st.set_mode("notes")
+    st.ids.notes.text = "pack rust <b>& flaking</b> at the bottom angles"
+    st.keep_note()
+    st.ids.photo.text = "/sdcard/DCIM/IMG_0412.jpg"
+    st.add_photo()
+    stored = app.session.station()
+    assert [(b.part, b.lo, b.hi, b.t) for b in stored.bands] == [("web", 250.0, 400.0, 6.0)]
+    assert [(p.part, p.lo, p.hi) for p in stored.perforations] == [("web", 300.0, 340.0)]
+    assert stored.notes == "pack rust <b>& flaking</b> at the bottom angles"
+    assert stored.photos == ["IMG_0412.jpg"]  # the file name only
     # a hole through the web above the angles cuts the shear section in two (core says so:
     # VQ/It not applicable); the app shows core's note and does not crash
     d.until(lambda: app.result is not None and app.result.seq == app.seq, timeout=10)
     assert not app.result.station_result.found.shear_applicable
     d.tap(nav(d, "results"))
     assert "not applicable" in d.screen("results").ids.flags.text
-    d.shot("7-results-perforated")
 
 
 def test_write_survey_file_and_report(field, tmp_path):
@@ -215,10 +221,10 @@ def test_write_survey_file_and_report(field, tmp_path):
     d = field()
     app = d.app
     new_survey(d, "Out")
-    station = d.screen("station")
     d.tap(nav(d, "station"))
-    station.choose_part("web")
-    station.commit_reading("8.8")
+    st = station(d)
+    st.choose_part("web")
+    st.commit_reading("8.8")
     d.tap(nav(d, "results"))
     buttons = [w for w in d.screen("results").walk() if getattr(w, "text", "").startswith("Write")]
     d.tap(next(b for b in buttons if "survey file" in b.text))
@@ -235,22 +241,28 @@ def test_write_survey_file_and_report(field, tmp_path):
     assert (tmp_path / "exports" / "Out.pdf").read_bytes()[:5] == b"%PDF-"
 
 
-def test_add_station_and_step_between_stations(field, tmp_path):
+def test_add_station_on_the_pad_and_step_between_stations(field, tmp_path):
     d = field()
     app = d.app
     new_survey(d, "Steps")
     member = d.screen("member")
-    member.ids.new_id.text, member.ids.new_pos.text = "S2", "3.5"
-    member.add_station()
+    assert member.next_id == "name (or S2)"
+    d.tap(member.ids.add_station)
+    panel = app.sheet.panel
+    assert "Position of new station S2" in panel.title
+    type_on(d, "3.5", panel)
+    d.tap(key(d, "Enter", panel))
     assert app.screen == "station" and app.session.station_id == "S2"
     assert app.session.station().position == 3.5
-    station = d.screen("station")
-    assert "S2 at 3.5 m" in station.ids.title.text
-    station.step(1)
+    assert "station S2 at 3.5 m" in station(d).ids.title.text
+    station(d).step(1)
     assert app.session.station_id == "S1"
-    # a station beyond the member is refused with core's message; nothing is added
+    # a station beyond the member is refused with core's message in the pad; nothing added
     d.tap(nav(d, "member"))
-    member.ids.new_id.text, member.ids.new_pos.text = "S9", "99"
-    member.add_station()
-    assert app.status_level == "error" and "S9" in app.status
+    d.tap(member.ids.add_station)
+    type_on(d, "99", panel)
+    d.tap(key(d, "Enter", panel))
+    assert app.sheet.is_open and panel.level == "error" and "outside the member" in panel.message
+    d.tap(panel.ids.close_btn)
+    assert not app.sheet.is_open
     assert app.session.station_ids() == ["S1", "S2"]

@@ -68,3 +68,20 @@ def test_only_samples_core_accepts_are_offered():
     assert "deck-girder-si.json" in names and "through-girder-us.json" in names
     assert "mistakes.json" not in names  # deliberate errors: core refuses it
     assert "section-demo-si.json" not in names  # a section file, not a survey
+
+
+def test_names_the_inspector_reads():
+    from fieldapp.names import line_name, part_name, place_name, readable
+
+    assert [part_name(p) for p in ("web", "angle_tl", "angle_br", "cover_bottom_1")] == [
+        "web",
+        "top-left angle",
+        "bottom-right angle",
+        "bottom cover 1",
+    ]
+    assert place_name("web", "b1") == "web band b1"
+    assert place_name("angle_bl", "h") == "bottom-left angle, flat leg"
+    assert line_name("cover_top_l") == "top cover, left" and line_name("my_line") == "my line"
+    assert (
+        readable("rivet line web_bottom at angle_bl") == "rivets web, bottom at bottom-left angle"
+    )

@@ -112,15 +112,17 @@ def test_undo_last_reverts_and_records(store):
     store.update_reading("G1", "S1", "r1", {"value": 7.5}, "ann")
     store.set_note("G1", "S1", "pack rust <heavy> & scale", "ann")
     assert store.to_survey().members[0].stations[0].notes == "pack rust <heavy> & scale"
-    undone = store.undo_last("bob")
+    assert store.undo_last("bob") == []  # bob made none of these: nothing of his to undo
+    undone = store.undo_last("ann")
     assert [(e.field, e.old, e.new) for e in undone] == [("notes", "", "pack rust <heavy> & scale")]
     assert store.to_survey().members[0].stations[0].notes == ""
-    store.undo_last("bob")
+    store.undo_last("ann")
     assert store.to_survey().members[0].stations[0].readings[0].value == 8.0
-    store.undo_last("bob")
+    store.undo_last("ann")
     assert store.to_survey().members[0].stations[0].readings == []
     undo_rows = [e for e in store.history() if e.action == "undo"]
-    assert len(undo_rows) == 3 and all(e.who == "bob" for e in undo_rows)
+    assert len(undo_rows) == 3 and all(e.who == "ann" for e in undo_rows)
+    assert all(e.device == store.device for e in undo_rows)
     store.delete_station("G1", "S1", "ann")
     store.undo_last("ann")  # undo a delete: the station is back
     assert [s.id for s in store.to_survey().members[0].stations] == ["S1"]

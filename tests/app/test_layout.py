@@ -1,0 +1,97 @@
+"""Every screen at every tablet size: nothing cut, shortened, overlapping or off the window.
+
+Walks each screen (and the pad's states: a held value, the band and hole forms, the pad
+over the Member screen, the undo question) at 800x1280 (portrait), 1024x768, 1280x800,
+1366x768 and 1920x1080, writes a screenshot of each to tests/_artifacts/screens/ and fails
+on every problem found by tests/app/layout.py.
+"""
+
+from __future__ import annotations
+
+import pytest
+
+from fieldapp.session import Session
+from tests.app.conftest import SAMPLES
+from tests.app.layout import problems
+
+pytestmark = pytest.mark.gui
+
+SIZES = ((800, 1280), (1024, 768), (1280, 800), (1366, 768), (1920, 1080))
+
+
+def nav(d, name):
+    bar = d.app.root.children[-1]
+    return next(b for b in bar.children if getattr(b, "screen", None) == name)
+
+
+def states(d, tmp_path):
+    """Bring the app into each state to check; yields the state's name."""
+    app = d.app
+    yield "surveys-empty"
+    app.set_session(Session.from_sample(tmp_path, app.book, SAMPLES / "deck-girder-si.json"))
+    d.results_settled()
+    d.tap(nav(d, "member"))
+    yield "member"
+    member = d.screen("member")
+    d.tap(member.fields["tw"][1])
+    yield "member-pad"
+    app.sheet.dismiss()
+    d.tap(nav(d, "station"))
+    d.until(lambda: app.result is not None and app.result.seq == app.seq, timeout=10)
+    yield "station"
+    station = d.screen("station")
+    station.choose_part("angle_bl")
+    d.pump(0.1)
+    yield "station-part"
+    station.ids.pad.text = "140"
+    station.ids.pad.commit()
+    yield "station-held"
+    station.pad_choice("no")
+    station.choose_part("web")
+    station.set_mode("band")
+    station.form = {"lo": "40", "hi": "160"}
+    station.pick_field("t")
+    yield "station-band"
+    station.set_mode("hole")
+    yield "station-hole"
+    station.set_mode("notes")
+    yield "station-notes"
+    station.set_mode("list")
+    yield "station-list"
+    d.tap(nav(d, "rivets"))
+    yield "rivets"
+    d.tap(nav(d, "results"))
+    d.until(lambda: app.result is not None and app.result.seq == app.seq, timeout=10)
+    yield "results"
+    station.choose_part("web")
+    station.commit_reading("6.8")
+    d.pump(0.4)
+    d.tap(app.root.ids.undo)
+    yield "undo-question"
+    app.confirm.answer(False)
+    d.tap(nav(d, "surveys"))
+    yield "surveys"
+    app.set_session(Session.from_sample(tmp_path, app.book, SAMPLES / "through-girder-us.json"))
+    d.tap(nav(d, "station"))
+    d.until(lambda: app.result is not None and app.result.seq == app.seq, timeout=10)
+    station.choose_part("cover_top_1")
+    yield "station-us"
+    d.tap(nav(d, "results"))
+    d.until(lambda: app.result is not None and app.result.seq == app.seq, timeout=10)
+    yield "results-us"
+
+
+@pytest.mark.parametrize("size", SIZES, ids=[f"{w}x{h}" for w, h in SIZES])
+def test_every_screen_fits_at_every_tablet_size(field, tmp_path, size):
+    from kivy.core.window import Window
+
+    d = field()
+    Window.size = size
+    d.pump(0.2)
+    assert tuple(Window.size) == size
+    found = []
+    for state in states(d, tmp_path):
+        d.pump(0.15)
+        d.shot(f"{size[0]}x{size[1]}-{state}", window=True)
+        found += [f"{state}: {p}" for p in problems(list(Window.children))]
+    assert found == [], "\n".join(found)
