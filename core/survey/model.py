@@ -13,12 +13,16 @@ Units of the document:
 
 from __future__ import annotations
 
+import bisect
 import math
 from typing import Any, Literal
 
-from pydantic import BaseModel, ConfigDict, Field, PrivateAttr
+from pydantic import BaseModel, ConfigDict, Field, PrivateAttr, model_validator
+from pydantic_core import PydanticCustomError
 
+from core import limits
 from core.definition import SectionDefinition, StationLoss
+from core.errors import InputError
 from core.errors import where as join
 from core.sectionfile import definition_from_dict
 from core.units import to_internal
@@ -33,6 +37,20 @@ Policy = Literal["mean", "minimum"]
 
 class _Model(BaseModel):
     model_config = ConfigDict(extra="forbid", allow_inf_nan=False, validate_assignment=True)
+
+
+def _within_limits(model, check):
+    """``model`` when ``check()`` passes; its InputError as a validation error otherwise."""
+    try:
+        check()
+    except InputError as e:
+        raise PydanticCustomError("limit", str(e)) from None
+    return model
+
+
+#: an id, a free text, and a short list (sizes from :mod:`core.limits`)
+_ID = {"min_length": 1, "max_length": limits.MAX_ID}
+_TEXT = {"max_length": limits.MAX_TEXT}
 
 
 class Quantity(_Model):
@@ -91,18 +109,42 @@ class SimpleSpan(_Model):
 
     dc: Quantity
     dw: Quantity | None = None
-    axles: list[Axle] = Field(default_factory=list)
+    axles: list[Axle] = Field(default_factory=list, max_length=limits.MAX_AXLES)
     im: float = Field(default=0.0, ge=0.0, le=1.0)
     distribution: float = Field(default=1.0, gt=0.0, le=4.0)
 
 
 class RivetRun(_Model):
-    """Rivets at a regular ``pitch`` from ``start`` to ``end`` (position unit), all ``state``."""
+    """Rivets at a regular ``pitch`` from ``start`` to ``end`` (position unit), all ``state``.
+
+    A run has at most :data:`core.limits.MAX_RIVETS_PER_LINE` rivets, checked from its
+    numbers before any rivet is made.
+    """
 
     start: float
     end: float
     pitch: float = Field(gt=0.0)
     state: RivetStateName = "sound"
+
+    def count(self) -> int:
+        """How many rivets the run puts on the line (0 when ``end`` is before ``start``).
+
+        Raises:
+            InputError: more than :data:`core.limits.MAX_RIVETS_PER_LINE`.
+        """
+        n = (self.end - self.start) / self.pitch  # may be inf for extreme numbers
+        if not math.isfinite(n) or n + 1e-9 >= limits.MAX_RIVETS_PER_LINE:
+            many = f"{math.floor(n + 1e-9) + 1:,}" if math.isfinite(n) else "too many"
+            raise InputError(
+                f"the run from {self.start:g} to {self.end:g} at pitch {self.pitch:g} gives "
+                f"{many} rivets, more than the limit of {limits.MAX_RIVETS_PER_LINE:,} "
+                "rivets on one line"
+            )
+        return max(math.floor(n + 1e-9), -1) + 1
+
+    @model_validator(mode="after")
+    def _bounded(self) -> RivetRun:
+        return _within_limits(self, self.count)
 
 
 class RivetAt(_Model):
@@ -115,24 +157,59 @@ class RivetAt(_Model):
 class RivetLineStates(_Model):
     """Rivet states along one rivet line of the section: a run plus exceptions, or a list."""
 
-    line: str = Field(min_length=1)
+    line: str = Field(**_ID)
     run: RivetRun | None = None
-    states: list[RivetAt] = Field(default_factory=list)
+    states: list[RivetAt] = Field(default_factory=list, max_length=limits.MAX_RIVETS_PER_LINE)
+
+    def count(self) -> int:
+        """Rivets of the run plus listed states (an upper bound of the line's rivets).
+
+        Raises:
+            InputError: more than :data:`core.limits.MAX_RIVETS_PER_LINE`.
+        """
+        n = (self.run.count() if self.run is not None else 0) + len(self.states)
+        return limits.count(
+            n,
+            limits.MAX_RIVETS_PER_LINE,
+            "rivets on one line (the run's and the listed states together)",
+        )
+
+    @model_validator(mode="after")
+    def _bounded(self) -> RivetLineStates:
+        return _within_limits(self, self.count)
 
     def expanded(self) -> list[tuple[float, str]]:
         """Every rivet as (position, state), sorted, in the position unit; an exception at
-        the position of a run rivet (within 1 % of the pitch) replaces it."""
+        the position of a run rivet (within 1 % of the pitch) replaces it.
+
+        Raises:
+            InputError: more rivets than :data:`core.limits.MAX_RIVETS_PER_LINE` (checked
+            before any is made).
+        """
+        self.count()
         out: dict[float, str] = {}
         tol = 1e-9
-        if self.run is not None:
-            r = self.run
-            n = math.floor((r.end - r.start) / r.pitch + 1e-9)
-            for k in range(max(n, -1) + 1):
+        r, last = self.run, -1
+        if r is not None:
+            last = r.count() - 1
+            for k in range(last + 1):
                 out[round(r.start + k * r.pitch, 9)] = r.state
             tol = 0.01 * r.pitch
+        extra: list[float] = []  # sorted positions of listed states that are not run rivets
         for s in self.states:
-            hit = next((p for p in out if abs(p - s.position) <= tol), None)
-            out[hit if hit is not None else s.position] = s.state
+            hit = None
+            if r is not None and last >= 0:
+                k = min(max(round((s.position - r.start) / r.pitch), 0), last)
+                p = round(r.start + k * r.pitch, 9)
+                hit = p if abs(p - s.position) <= tol else None
+            if hit is None:
+                i = bisect.bisect_left(extra, s.position - tol)
+                if i < len(extra) and abs(extra[i] - s.position) <= tol:
+                    hit = extra[i]
+                else:
+                    bisect.insort(extra, s.position)
+                    hit = s.position
+            out[hit] = s.state
         return sorted(out.items())
 
 
@@ -144,16 +221,16 @@ class Reading(_Model):
     text), ``face`` which side it was taken from, ``time`` an ISO date-time.
     """
 
-    id: str = Field(min_length=1)
-    part: str = Field(min_length=1)
-    region: str | None = None
-    location: str = ""
+    id: str = Field(**_ID)
+    part: str = Field(**_ID)
+    region: str | None = Field(default=None, max_length=limits.MAX_ID)
+    location: str = Field(default="", **_TEXT)
     value: float
     unit: str = Field(min_length=1)
-    instrument: str = ""
-    face: str = ""
-    time: str = ""
-    who: str = ""
+    instrument: str = Field(default="", **_TEXT)
+    face: str = Field(default="", **_TEXT)
+    time: str = Field(default="", **_TEXT)
+    who: str = Field(default="", **_TEXT)
 
     def mm(self, where: str = "") -> float:
         """The reading in mm (raises UnitError for a unit that is not a length)."""
@@ -165,35 +242,35 @@ class Band(_Model):
     the plate width: heights for a web). Its remaining thickness is ``t`` (length unit) or,
     when ``t`` is absent, the readings whose region is this band's id."""
 
-    id: str = Field(min_length=1)
-    part: str = Field(min_length=1)
+    id: str = Field(**_ID)
+    part: str = Field(**_ID)
     lo: float
     hi: float
     t: float | None = None
-    note: str = ""
+    note: str = Field(default="", **_TEXT)
 
 
 class Perforation(_Model):
     """A hole through a plate from ``lo`` to ``hi`` (length unit) along its width."""
 
-    id: str = Field(min_length=1)
-    part: str = Field(min_length=1)
+    id: str = Field(**_ID)
+    part: str = Field(**_ID)
     lo: float
     hi: float
-    note: str = ""
+    note: str = Field(default="", **_TEXT)
 
 
 class Station(_Model):
     """A place along a member where the section was measured."""
 
-    id: str = Field(min_length=1)
+    id: str = Field(**_ID)
     position: float
     loads: StationLoads | None = None
-    readings: list[Reading] = Field(default_factory=list)
-    bands: list[Band] = Field(default_factory=list)
-    perforations: list[Perforation] = Field(default_factory=list)
-    notes: str = ""
-    photos: list[str] = Field(default_factory=list)
+    readings: list[Reading] = Field(default_factory=list, max_length=limits.MAX_READINGS)
+    bands: list[Band] = Field(default_factory=list, max_length=limits.MAX_CUTS)
+    perforations: list[Perforation] = Field(default_factory=list, max_length=limits.MAX_CUTS)
+    notes: str = Field(default="", **_TEXT)
+    photos: list[str] = Field(default_factory=list, max_length=limits.MAX_LIST)
 
     def position_mm(self, member: Member) -> float:
         """Position along the member in mm."""
@@ -221,14 +298,14 @@ class Member(_Model):
     the survey's length unit), span, stiffener spacing ``do`` (None = unstiffened),
     rivet states per line, optional simple-span loads, and its stations."""
 
-    id: str = Field(min_length=1)
-    label: str = ""
+    id: str = Field(**_ID)
+    label: str = Field(default="", **_TEXT)
     span: Quantity
     do: Quantity | None = None
     section: dict[str, Any]
-    rivets: list[RivetLineStates] = Field(default_factory=list)
+    rivets: list[RivetLineStates] = Field(default_factory=list, max_length=limits.MAX_RIVET_LINES)
     simple_span: SimpleSpan | None = None
-    stations: list[Station] = Field(default_factory=list)
+    stations: list[Station] = Field(default_factory=list, max_length=limits.MAX_STATIONS)
 
     _length_unit: str = PrivateAttr(default="mm")
     _position_unit: str = PrivateAttr(default="m")
@@ -240,6 +317,13 @@ class Member(_Model):
     @property
     def position_unit(self) -> str:
         return self._position_unit
+
+    @model_validator(mode="after")
+    def _bounded(self) -> Member:
+        n = sum(r.count() for r in self.rivets)
+        return _within_limits(
+            self, lambda: limits.count(n, limits.MAX_RIVETS_PER_MEMBER, "rivets on one member")
+        )
 
     def place(self, station: str | None = None, *more: str) -> str:
         """A place string: ``member 'G1' / station 'S2' / ...``."""
@@ -280,13 +364,13 @@ class Member(_Model):
 class SurveyHeader(_Model):
     """Who, what, where and when, plus the engineer's choices for the whole survey."""
 
-    id: str = Field(min_length=1)
-    title: str = ""
-    structure: str = ""
-    location: str = ""
-    owner_ref: str = ""
-    inspector: str = ""
-    dates: list[str] = Field(default_factory=list)
+    id: str = Field(**_ID)
+    title: str = Field(default="", **_TEXT)
+    structure: str = Field(default="", **_TEXT)
+    location: str = Field(default="", **_TEXT)
+    owner_ref: str = Field(default="", **_TEXT)
+    inspector: str = Field(default="", **_TEXT)
+    dates: list[str] = Field(default_factory=list, max_length=limits.MAX_LIST)
     unit_system: Literal["si", "us"] = "si"
     standard: Literal["aashto", "aisc", "en1993"] = "aashto"
     material: Material | None = None
@@ -300,9 +384,16 @@ class Survey(_Model):
 
     format: Literal["asfound.survey"] = FORMAT
     version: Literal[1] = VERSION
-    note: str = ""
+    note: str = Field(default="", **_TEXT)
     survey: SurveyHeader
-    members: list[Member] = Field(default_factory=list)
+    members: list[Member] = Field(default_factory=list, max_length=limits.MAX_MEMBERS)
+
+    @model_validator(mode="after")
+    def _bounded(self) -> Survey:
+        n = sum(len(m.stations) for m in self.members)
+        return _within_limits(
+            self, lambda: limits.count(n, limits.MAX_STATIONS_PER_SURVEY, "stations in one survey")
+        )
 
     def model_post_init(self, __context: Any) -> None:
         for m in self.members:

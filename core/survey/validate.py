@@ -19,6 +19,7 @@ from typing import Any
 import jsonschema
 from pydantic import ValidationError
 
+from core import limits
 from core.definition import SectionDefinition
 from core.errors import AsfoundError
 from core.errors import where as join
@@ -222,24 +223,30 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
                         wl,
                     )
                 )
+        if r.run is not None:
+            pitch = _kind(r.run.pitch, pos_unit, "length", wl, probs)
+            _range(pitch, limits.MIN_LENGTH_MM, limits.MAX_LENGTH_MM, "run pitch", "mm", wl, probs)
         if L is None:
             continue
-        for p, _state in r.expanded():
-            x = _kind(p, pos_unit, "length", wl, probs)
-            if x is not None and not -1e-6 <= x <= L + 1e-6:
-                probs.append(
-                    Problem(
-                        "error",
-                        f"rivet at {p:g} {pos_unit} is beyond the member (0 to "
-                        f"{L / to_internal(1.0, pos_unit, 'length'):g} {pos_unit})",
-                        wl,
-                    )
+        f = to_internal(1.0, pos_unit, "length")
+        beyond = [p for p, _state in r.expanded() if not -1e-6 <= p * f <= L + 1e-6]
+        if beyond:
+            more = f" (and {len(beyond) - 1:,} more on the line)" if len(beyond) > 1 else ""
+            probs.append(
+                Problem(
+                    "error",
+                    f"rivet at {beyond[0]:g} {pos_unit} is beyond the member (0 to "
+                    f"{L / f:g} {pos_unit}){more}",
+                    wl,
                 )
+            )
     if m.simple_span is not None:
         ss, ws = m.simple_span, join(w, "simple_span")
-        _kind(ss.dc.value, ss.dc.unit, "force_per_length", join(ws, "dc"), probs)
-        if ss.dw is not None:
-            _kind(ss.dw.value, ss.dw.unit, "force_per_length", join(ws, "dw"), probs)
+        for name, q in (("dc", ss.dc), ("dw", ss.dw)):
+            if q is not None:
+                wq = join(ws, name)
+                v = _kind(q.value, q.unit, "force_per_length", wq, probs)
+                _range(v, 0.0, limits.MAX_FORCE_PER_LENGTH, name, "N/mm", wq, probs)
         for i, a in enumerate(ss.axles, start=1):
             wa = join(ws, f"axle #{i}")
             _range(
@@ -288,10 +295,14 @@ def check_station(
             eff = getattr(st.loads, name)
             if eff is None:
                 continue
-            if eff.V is not None:
-                _kind(eff.V.value, eff.V.unit, "force", join(w, "loads", name, "V"), probs)
-            if eff.M is not None:
-                _kind(eff.M.value, eff.M.unit, "moment", join(w, "loads", name, "M"), probs)
+            for sym, kind, top, unit in (
+                ("V", "force", limits.MAX_FORCE_N, "N"),
+                ("M", "moment", limits.MAX_MOMENT_NMM, "N mm"),
+            ):
+                q = getattr(eff, sym)
+                if q is not None:
+                    wq = join(w, "loads", name, sym)
+                    _range(_kind(q.value, q.unit, kind, wq, probs), -top, top, sym, unit, wq, probs)
     probs += _dupes([r.id for r in st.readings], "reading", w)
     probs += _dupes([b.id for b in st.bands], "band", w)
     probs += _dupes([p.id for p in st.perforations], "perforation", w)
