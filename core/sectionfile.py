@@ -31,6 +31,9 @@ Example (lengths in mm)::
 
 from __future__ import annotations
 
+import math
+from collections.abc import Iterator
+from contextlib import contextmanager
 from pathlib import Path
 from typing import Any
 
@@ -44,7 +47,7 @@ from core.definition import (
     StationLoss,
     riveted_girder,
 )
-from core.errors import SchemaError
+from core.errors import GeometryError, SchemaError
 from core.jsonfile import read_json
 from core.parts import Angle, Plate
 from core.units import to_internal
@@ -70,6 +73,18 @@ _GIRDER_ZERO_OK = {"web_recess"}
 _PLATE_SIZES, _PLATE_COORDS = ("b", "t"), ("x", "y")
 _ANGLE_SIZES, _ANGLE_COORDS = ("b_h", "b_v", "t"), ("x", "y")
 _LINE_SIZES, _LINE_COORDS = ("d", "d_hole", "pitch"), ("position",)
+
+
+@contextmanager
+def _at(where: str) -> Iterator[None]:
+    """Give an engine object's error (a part, a rivet line: they know only their own name)
+    the place in the file."""
+    try:
+        yield
+    except GeometryError as e:
+        if where and not str(e).startswith(where):
+            raise GeometryError(str(e), where=where) from None
+        raise
 
 
 def _need(d: Any, key: str, where: str) -> Any:
@@ -98,8 +113,12 @@ def _text(v: Any, name: str, where: str) -> str:
 
 
 def _int(v: Any, name: str, where: str) -> int:
-    if isinstance(v, bool) or not isinstance(v, int | float) or v != int(v):
-        raise SchemaError(f"{name} = {v!r:.40} is not a whole number", where=where)
+    """A small whole number (a direction, a count of shear planes or lines)."""
+    ok = isinstance(v, int | float) and not isinstance(v, bool)
+    if not ok or not math.isfinite(v) or abs(v) > 1000 or v != int(v):
+        raise SchemaError(
+            f"{name} = {v!r:.40} is not a whole number from -1000 to 1000", where=where
+        )
     return int(v)
 
 
@@ -169,7 +188,8 @@ def definition_from_dict(sec: dict, length_unit: str = "mm", where: str = "") ->
             else:
                 raise SchemaError(f"unknown girder key {k!r}", where=w)
         try:
-            base = riveted_girder(**kw)
+            with _at(w):
+                base = riveted_girder(**kw)
         except TypeError as e:
             raise SchemaError(f"girder template: {e}", where=w) from None
         parts.extend(base.parts)
@@ -180,44 +200,41 @@ def definition_from_dict(sec: dict, length_unit: str = "mm", where: str = "") ->
         if kind == "plate":
             vals = {k: _size(_need(p, k, w), length_unit, f"{w} / {k}") for k in _PLATE_SIZES}
             vals |= {k: _coord(_need(p, k, w), length_unit, f"{w} / {k}") for k in _PLATE_COORDS}
-            parts.append(
-                Plate(
-                    _text(_need(p, "id", w), "id", w),
+            pid = _text(_need(p, "id", w), "id", w)
+            with _at(w):
+                plate = Plate(
+                    pid,
                     orientation=p.get("orientation", "horizontal"),
                     kept_face=p.get("kept_face", "centre"),
                     role=str(p.get("role", "plate")),
                     **vals,
                 )
-            )
+            parts.append(plate)
         elif kind == "angle":
             vals = {k: _size(_need(p, k, w), length_unit, f"{w} / {k}") for k in _ANGLE_SIZES}
             vals |= {k: _coord(_need(p, k, w), length_unit, f"{w} / {k}") for k in _ANGLE_COORDS}
-            parts.append(
-                Angle(
-                    _text(_need(p, "id", w), "id", w),
-                    dir_x=_int(p.get("dir_x", 1), "dir_x", w),
-                    dir_y=_int(p.get("dir_y", 1), "dir_y", w),
-                    role=str(p.get("role", "angle")),
-                    **vals,
-                )
-            )
+            pid = _text(_need(p, "id", w), "id", w)
+            dirs = {k: _int(p.get(k, 1), k, w) for k in ("dir_x", "dir_y")}
+            with _at(w):
+                angle = Angle(pid, role=str(p.get("role", "angle")), **dirs, **vals)
+            parts.append(angle)
         else:
             raise SchemaError(f"part kind {kind!r:.40} is not 'plate' or 'angle'", where=w)
     for i, r in enumerate(_items(sec.get("rivet_lines"), limits.MAX_PARTS, "rivet lines", where)):
         w = f"{where} / rivet_lines[{i}]"
         vals = {k: _size(_need(r, k, w), length_unit, f"{w} / {k}") for k in _LINE_SIZES}
         vals |= {k: _coord(_need(r, k, w), length_unit, f"{w} / {k}") for k in _LINE_COORDS}
-        line = RivetLine(
-            _text(_need(r, "id", w), "id", w),
-            _need(r, "axis", w),
-            parts=_ids(_need(r, "parts", w), f"{w} / parts"),
-            shear_planes=_int(r.get("shear_planes", 1), "shear_planes", w),
-            outside=_ids(r.get("outside", []), f"{w} / outside"),
-            n_lines=_int(r.get("n_lines", 1), "n_lines", w),
-            **vals,
-        )
+        kw = {
+            "parts": _ids(_need(r, "parts", w), f"{w} / parts"),
+            "shear_planes": _int(r.get("shear_planes", 1), "shear_planes", w),
+            "outside": _ids(r.get("outside", []), f"{w} / outside"),
+            "n_lines": _int(r.get("n_lines", 1), "n_lines", w),
+        }
+        with _at(w):
+            line = RivetLine(_text(_need(r, "id", w), "id", w), _need(r, "axis", w), **kw, **vals)
         lines = [x for x in lines if x.id != line.id] + [line]
-    return SectionDefinition(tuple(parts), tuple(lines), name)
+    with _at(where):
+        return SectionDefinition(tuple(parts), tuple(lines), name)
 
 
 def _ids(v: Any, where: str) -> tuple[str, ...]:
@@ -238,34 +255,29 @@ def loss_from_dict(loss: dict | None, length_unit: str = "mm", where: str = "") 
     th = []
     for i, e in enumerate(_items(loss.get("thickness"), limits.MAX_READINGS, "thickness", where)):
         w = f"{where} / thickness[{i}]"
-        th.append(
-            PartThickness(
-                _text(_need(e, "part", w), "part", w),
-                _size(_need(e, "t", w), length_unit, f"{w} / t"),
-                e.get("leg"),
-            )
+        part, t = (
+            _text(_need(e, "part", w), "part", w),
+            _size(_need(e, "t", w), length_unit, f"{w} / t"),
         )
+        with _at(w):
+            th.append(PartThickness(part, t, e.get("leg")))
     bands = []
     for i, e in enumerate(_items(loss.get("bands"), limits.MAX_CUTS, "bands", where)):
         w = f"{where} / bands[{i}]"
-        bands.append(
-            LossBand(
-                _text(_need(e, "part", w), "part", w),
-                _coord(_need(e, "lo", w), length_unit, f"{w} / lo"),
-                _coord(_need(e, "hi", w), length_unit, f"{w} / hi"),
-                _size(_need(e, "t", w), length_unit, f"{w} / t", allow_zero=True),
-            )
-        )
+        part = _text(_need(e, "part", w), "part", w)
+        lo = _coord(_need(e, "lo", w), length_unit, f"{w} / lo")
+        hi = _coord(_need(e, "hi", w), length_unit, f"{w} / hi")
+        t = _size(_need(e, "t", w), length_unit, f"{w} / t", allow_zero=True)
+        with _at(w):
+            bands.append(LossBand(part, lo, hi, t))
     perfs = []
     for i, e in enumerate(_items(loss.get("perforations"), limits.MAX_CUTS, "perforations", where)):
         w = f"{where} / perforations[{i}]"
-        perfs.append(
-            Perforation(
-                _text(_need(e, "part", w), "part", w),
-                _coord(_need(e, "lo", w), length_unit, f"{w} / lo"),
-                _coord(_need(e, "hi", w), length_unit, f"{w} / hi"),
-            )
-        )
+        part = _text(_need(e, "part", w), "part", w)
+        lo = _coord(_need(e, "lo", w), length_unit, f"{w} / lo")
+        hi = _coord(_need(e, "hi", w), length_unit, f"{w} / hi")
+        with _at(w):
+            perfs.append(Perforation(part, lo, hi))
     return StationLoss(tuple(th), tuple(bands), tuple(perfs), where=where)
 
 
