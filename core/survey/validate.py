@@ -102,7 +102,7 @@ def check_document(doc: Any, where: str = "") -> tuple[Survey | None, list[Probl
     errs = sorted(validator.iter_errors(work), key=lambda e: list(map(str, e.absolute_path)))
     for e in errs:
         path = tuple(e.absolute_path)
-        probs.append(Problem("error", e.message, join(where, place_of(doc, path))))
+        probs.append(Problem("error", _schema_message(e), join(where, place_of(doc, path))))
     model: Survey | None = None
     if not errs or _prune(work, [tuple(e.absolute_path) for e in errs]):
         for _ in range(10):
@@ -112,13 +112,23 @@ def check_document(doc: Any, where: str = "") -> tuple[Survey | None, list[Probl
             except ValidationError as ve:
                 locs = [tuple(x["loc"]) for x in ve.errors()]
                 for x in ve.errors():
-                    probs.append(Problem("error", x["msg"], join(where, place_of(work, x["loc"]))))
+                    msg = x["msg"] if len(x["msg"]) <= 300 else x["msg"][:300] + "..."
+                    probs.append(Problem("error", msg, join(where, place_of(work, x["loc"]))))
                 if not _prune(work, locs):
                     break
     if model is None:
         probs.append(Problem("note", "the meaning of the survey was not checked", where))
         return None, probs
     return model, probs + check_survey(model, where)
+
+
+def _schema_message(e: jsonschema.ValidationError) -> str:
+    """The schema's message, with a size limit said in words (not the whole list or text)."""
+    if e.validator in ("maxItems", "maxLength"):
+        what = "items" if e.validator == "maxItems" else "characters"
+        return f"{len(e.instance):,} {what} is more than the limit of {e.validator_value:,}"
+    msg = e.message
+    return msg if len(msg) <= 300 else f"{msg[:300]}... ({len(msg):,} characters)"
 
 
 def _range(v: float | None, lo: float, hi: float, name: str, unit: str, w: str, probs) -> None:
