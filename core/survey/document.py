@@ -125,7 +125,6 @@ def export_survey(
             survey = source.to_survey()
     else:
         inputs.append(Path(source))
-        check_output(path, inputs, "survey", force=force)  # before the store is opened
         with FieldStore.open(source) as store, store_content(source):
             survey = store.to_survey()
     out = check_output(path, inputs, "survey", force=force, survey_id=survey.survey.id)

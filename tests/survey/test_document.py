@@ -9,7 +9,7 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from core.errors import OutputError, SchemaError, StoreError
+from core.errors import OutputError, SchemaError
 from core.survey.document import export_document, export_survey, import_survey, load_survey
 from core.survey.model import Survey
 from core.survey.store import FieldStore
