@@ -19,6 +19,12 @@ ROOT = Path(__file__).resolve().parents[2]
 DEMO = json.loads((ROOT / "survey_samples" / "section-demo-si.json").read_text(encoding="utf-8"))
 
 
+def _line(**kw) -> dict:
+    """A rivet line of the section description (mm), changed by ``kw``."""
+    line = {"id": "l1", "axis": "horizontal", "position": 50, "d": 20, "d_hole": 21}
+    return line | {"pitch": 100, "parts": ["web"]} | kw
+
+
 def _doc(**changes) -> dict:
     d = copy.deepcopy(DEMO)
     for path, v in changes.items():
@@ -66,36 +72,11 @@ def _doc(**changes) -> dict:
             "dir_x = 'a' is not a whole number",
         ),
         (
-            {
-                "section__rivet_lines": [
-                    {
-                        "id": "l1",
-                        "axis": "horizontal",
-                        "position": 50,
-                        "d": 20,
-                        "d_hole": 21,
-                        "pitch": 100,
-                        "parts": 3,
-                    }
-                ]
-            },
+            {"section__rivet_lines": [_line(parts=3)]},
             "rivet_lines[0] / parts: part ids must be a list, found int",
         ),
         (
-            {
-                "section__rivet_lines": [
-                    {
-                        "id": "l1",
-                        "axis": "horizontal",
-                        "position": 50,
-                        "d": 20,
-                        "d_hole": 21,
-                        "pitch": 100,
-                        "parts": ["web"],
-                        "shear_planes": 1e30,
-                    }
-                ]
-            },
+            {"section__rivet_lines": [_line(shear_planes=1e30)]},
             "shear_planes = 1e+30 is not a whole number from -1000 to 1000",
         ),
         ({"section": [1]}, "'section' must be an object, found list"),
