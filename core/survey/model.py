@@ -17,8 +17,7 @@ import bisect
 import math
 from typing import Any, Literal
 
-from pydantic import BaseModel, ConfigDict, Field, PrivateAttr, model_validator
-from pydantic_core import PydanticCustomError
+from pydantic import BaseModel, ConfigDict, Field, PrivateAttr
 
 from core import limits
 from core.definition import SectionDefinition, StationLoss
@@ -37,20 +36,6 @@ Policy = Literal["mean", "minimum"]
 
 class _Model(BaseModel):
     model_config = ConfigDict(extra="forbid", allow_inf_nan=False, validate_assignment=True)
-
-
-def _within_limits(model, check):
-    """``model`` when ``check()`` passes; its InputError as a validation error otherwise."""
-    try:
-        check()
-    except InputError as e:
-        raise PydanticCustomError("limit", str(e)) from None
-    return model
-
-
-#: an id, a free text, and a short list (sizes from :mod:`core.limits`)
-_ID = {"min_length": 1, "max_length": limits.MAX_ID}
-_TEXT = {"max_length": limits.MAX_TEXT}
 
 
 class Quantity(_Model):
@@ -109,7 +94,7 @@ class SimpleSpan(_Model):
 
     dc: Quantity
     dw: Quantity | None = None
-    axles: list[Axle] = Field(default_factory=list, max_length=limits.MAX_AXLES)
+    axles: list[Axle] = Field(default_factory=list)
     im: float = Field(default=0.0, ge=0.0, le=1.0)
     distribution: float = Field(default=1.0, gt=0.0, le=4.0)
 
@@ -117,8 +102,8 @@ class SimpleSpan(_Model):
 class RivetRun(_Model):
     """Rivets at a regular ``pitch`` from ``start`` to ``end`` (position unit), all ``state``.
 
-    A run has at most :data:`core.limits.MAX_RIVETS_PER_LINE` rivets, checked from its
-    numbers before any rivet is made.
+    A run has at most :data:`core.limits.MAX_RIVETS_PER_LINE` rivets, counted from its
+    numbers before any rivet is made (:meth:`count`; validation reports a longer run).
     """
 
     start: float
@@ -142,10 +127,6 @@ class RivetRun(_Model):
             )
         return max(math.floor(n + 1e-9), -1) + 1
 
-    @model_validator(mode="after")
-    def _bounded(self) -> RivetRun:
-        return _within_limits(self, self.count)
-
 
 class RivetAt(_Model):
     """The state of the rivet at ``position`` (position unit) along the member."""
@@ -157,9 +138,9 @@ class RivetAt(_Model):
 class RivetLineStates(_Model):
     """Rivet states along one rivet line of the section: a run plus exceptions, or a list."""
 
-    line: str = Field(**_ID)
+    line: str = Field(min_length=1)
     run: RivetRun | None = None
-    states: list[RivetAt] = Field(default_factory=list, max_length=limits.MAX_RIVETS_PER_LINE)
+    states: list[RivetAt] = Field(default_factory=list)
 
     def count(self) -> int:
         """Rivets of the run plus listed states (an upper bound of the line's rivets).
@@ -173,10 +154,6 @@ class RivetLineStates(_Model):
             limits.MAX_RIVETS_PER_LINE,
             "rivets on one line (the run's and the listed states together)",
         )
-
-    @model_validator(mode="after")
-    def _bounded(self) -> RivetLineStates:
-        return _within_limits(self, self.count)
 
     def expanded(self) -> list[tuple[float, str]]:
         """Every rivet as (position, state), sorted, in the position unit; an exception at
@@ -198,9 +175,9 @@ class RivetLineStates(_Model):
         extra: list[float] = []  # sorted positions of listed states that are not run rivets
         for s in self.states:
             hit = None
-            if r is not None and last >= 0:
-                k = min(max(round((s.position - r.start) / r.pitch), 0), last)
-                p = round(r.start + k * r.pitch, 9)
+            q = (s.position - r.start) / r.pitch if r is not None and last >= 0 else math.nan
+            if math.isfinite(q):  # the nearest rivet of the run
+                p = round(r.start + min(max(round(q), 0), last) * r.pitch, 9)
                 hit = p if abs(p - s.position) <= tol else None
             if hit is None:
                 i = bisect.bisect_left(extra, s.position - tol)
@@ -221,16 +198,16 @@ class Reading(_Model):
     text), ``face`` which side it was taken from, ``time`` an ISO date-time.
     """
 
-    id: str = Field(**_ID)
-    part: str = Field(**_ID)
-    region: str | None = Field(default=None, max_length=limits.MAX_ID)
-    location: str = Field(default="", **_TEXT)
+    id: str = Field(min_length=1)
+    part: str = Field(min_length=1)
+    region: str | None = None
+    location: str = ""
     value: float
     unit: str = Field(min_length=1)
-    instrument: str = Field(default="", **_TEXT)
-    face: str = Field(default="", **_TEXT)
-    time: str = Field(default="", **_TEXT)
-    who: str = Field(default="", **_TEXT)
+    instrument: str = ""
+    face: str = ""
+    time: str = ""
+    who: str = ""
 
     def mm(self, where: str = "") -> float:
         """The reading in mm (raises UnitError for a unit that is not a length)."""
@@ -242,35 +219,35 @@ class Band(_Model):
     the plate width: heights for a web). Its remaining thickness is ``t`` (length unit) or,
     when ``t`` is absent, the readings whose region is this band's id."""
 
-    id: str = Field(**_ID)
-    part: str = Field(**_ID)
+    id: str = Field(min_length=1)
+    part: str = Field(min_length=1)
     lo: float
     hi: float
     t: float | None = None
-    note: str = Field(default="", **_TEXT)
+    note: str = ""
 
 
 class Perforation(_Model):
     """A hole through a plate from ``lo`` to ``hi`` (length unit) along its width."""
 
-    id: str = Field(**_ID)
-    part: str = Field(**_ID)
+    id: str = Field(min_length=1)
+    part: str = Field(min_length=1)
     lo: float
     hi: float
-    note: str = Field(default="", **_TEXT)
+    note: str = ""
 
 
 class Station(_Model):
     """A place along a member where the section was measured."""
 
-    id: str = Field(**_ID)
+    id: str = Field(min_length=1)
     position: float
     loads: StationLoads | None = None
-    readings: list[Reading] = Field(default_factory=list, max_length=limits.MAX_READINGS)
-    bands: list[Band] = Field(default_factory=list, max_length=limits.MAX_CUTS)
-    perforations: list[Perforation] = Field(default_factory=list, max_length=limits.MAX_CUTS)
-    notes: str = Field(default="", **_TEXT)
-    photos: list[str] = Field(default_factory=list, max_length=limits.MAX_LIST)
+    readings: list[Reading] = Field(default_factory=list)
+    bands: list[Band] = Field(default_factory=list)
+    perforations: list[Perforation] = Field(default_factory=list)
+    notes: str = ""
+    photos: list[str] = Field(default_factory=list)
 
     def position_mm(self, member: Member) -> float:
         """Position along the member in mm."""
@@ -298,14 +275,14 @@ class Member(_Model):
     the survey's length unit), span, stiffener spacing ``do`` (None = unstiffened),
     rivet states per line, optional simple-span loads, and its stations."""
 
-    id: str = Field(**_ID)
-    label: str = Field(default="", **_TEXT)
+    id: str = Field(min_length=1)
+    label: str = ""
     span: Quantity
     do: Quantity | None = None
     section: dict[str, Any]
-    rivets: list[RivetLineStates] = Field(default_factory=list, max_length=limits.MAX_RIVET_LINES)
+    rivets: list[RivetLineStates] = Field(default_factory=list)
     simple_span: SimpleSpan | None = None
-    stations: list[Station] = Field(default_factory=list, max_length=limits.MAX_STATIONS)
+    stations: list[Station] = Field(default_factory=list)
 
     _length_unit: str = PrivateAttr(default="mm")
     _position_unit: str = PrivateAttr(default="m")
@@ -317,13 +294,6 @@ class Member(_Model):
     @property
     def position_unit(self) -> str:
         return self._position_unit
-
-    @model_validator(mode="after")
-    def _bounded(self) -> Member:
-        n = sum(r.count() for r in self.rivets)
-        return _within_limits(
-            self, lambda: limits.count(n, limits.MAX_RIVETS_PER_MEMBER, "rivets on one member")
-        )
 
     def place(self, station: str | None = None, *more: str) -> str:
         """A place string: ``member 'G1' / station 'S2' / ...``."""
@@ -364,13 +334,13 @@ class Member(_Model):
 class SurveyHeader(_Model):
     """Who, what, where and when, plus the engineer's choices for the whole survey."""
 
-    id: str = Field(**_ID)
-    title: str = Field(default="", **_TEXT)
-    structure: str = Field(default="", **_TEXT)
-    location: str = Field(default="", **_TEXT)
-    owner_ref: str = Field(default="", **_TEXT)
-    inspector: str = Field(default="", **_TEXT)
-    dates: list[str] = Field(default_factory=list, max_length=limits.MAX_LIST)
+    id: str = Field(min_length=1)
+    title: str = ""
+    structure: str = ""
+    location: str = ""
+    owner_ref: str = ""
+    inspector: str = ""
+    dates: list[str] = Field(default_factory=list)
     unit_system: Literal["si", "us"] = "si"
     standard: Literal["aashto", "aisc", "en1993"] = "aashto"
     material: Material | None = None
@@ -384,16 +354,9 @@ class Survey(_Model):
 
     format: Literal["asfound.survey"] = FORMAT
     version: Literal[1] = VERSION
-    note: str = Field(default="", **_TEXT)
+    note: str = ""
     survey: SurveyHeader
-    members: list[Member] = Field(default_factory=list, max_length=limits.MAX_MEMBERS)
-
-    @model_validator(mode="after")
-    def _bounded(self) -> Survey:
-        n = sum(len(m.stations) for m in self.members)
-        return _within_limits(
-            self, lambda: limits.count(n, limits.MAX_STATIONS_PER_SURVEY, "stations in one survey")
-        )
+    members: list[Member] = Field(default_factory=list)
 
     def model_post_init(self, __context: Any) -> None:
         for m in self.members:

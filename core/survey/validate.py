@@ -21,7 +21,7 @@ from pydantic import ValidationError
 
 from core import limits
 from core.definition import SectionDefinition
-from core.errors import AsfoundError
+from core.errors import AsfoundError, InputError
 from core.errors import where as join
 from core.survey.checkitems import _kind, check_cut, check_reading
 from core.survey.model import FORMAT, VERSION, Member, Station, Survey
@@ -181,6 +181,16 @@ def check_survey(s: Survey, where: str = "") -> list[Problem]:
         probs.append(
             Problem("warning", "neither material nor year built given: set Fy before assessment", w)
         )
+    n = sum(len(m.stations) for m in s.members)
+    if n > limits.MAX_STATIONS_PER_SURVEY:
+        probs.append(
+            Problem(
+                "error",
+                f"{n:,} stations in one survey is more than the limit of "
+                f"{limits.MAX_STATIONS_PER_SURVEY:,}",
+                where,
+            )
+        )
     probs += _dupes([m.id for m in s.members], "member", where)
     for m in s.members:
         probs += check_member(m, where)
@@ -210,19 +220,28 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
     except AsfoundError as e:
         probs.append(Problem("error", f"section: {e}", w))
     pos_unit = m.position_unit
+    f = _kind(1.0, pos_unit, "length", w, [])  # mm per position unit (its errors: header)
+    total = 0
     for r in m.rivets:
         wl = join(w, f"rivet line {r.line!r}")
         if defn is not None and r.line not in {x.id for x in defn.rivet_lines}:
             known = [x.id for x in defn.rivet_lines]
             probs.append(Problem("error", f"unknown rivet line {r.line!r}; known: {known}", wl))
+        try:
+            total += r.count()
+        except InputError as e:  # counted from the numbers: nothing was expanded
+            probs.append(Problem("error", str(e), join(wl, "run") if r.run else wl))
+            continue
         if r.run is not None and r.run.end < r.run.start:
             probs.append(
                 Problem("error", f"run end {r.run.end:g} is before start {r.run.start:g}", wl)
             )
         line = next((x for x in defn.rivet_lines if x.id == r.line), None) if defn else None
-        if line is not None and r.run is not None:
+        if r.run is not None:
             recorded = _kind(r.run.pitch, pos_unit, "length", wl, probs)
-            if recorded is not None and abs(recorded / line.pitch - 1.0) > 0.05:
+            lo, hi = limits.MIN_LENGTH_MM, limits.MAX_LENGTH_MM
+            _range(recorded, lo, hi, "run pitch", "mm", wl, probs)
+            if line is not None and recorded is not None and abs(recorded / line.pitch - 1) > 0.05:
                 probs.append(
                     Problem(
                         "warning",
@@ -233,12 +252,8 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
                         wl,
                     )
                 )
-        if r.run is not None:
-            pitch = _kind(r.run.pitch, pos_unit, "length", wl, probs)
-            _range(pitch, limits.MIN_LENGTH_MM, limits.MAX_LENGTH_MM, "run pitch", "mm", wl, probs)
-        if L is None:
+        if L is None or f is None:
             continue
-        f = to_internal(1.0, pos_unit, "length")
         beyond = [p for p, _state in r.expanded() if not -1e-6 <= p * f <= L + 1e-6]
         if beyond:
             more = f" (and {len(beyond) - 1:,} more on the line)" if len(beyond) > 1 else ""
@@ -250,6 +265,15 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
                     wl,
                 )
             )
+    if total > limits.MAX_RIVETS_PER_MEMBER:
+        probs.append(
+            Problem(
+                "error",
+                f"{total:,} rivets on the member's lines is more than the limit of "
+                f"{limits.MAX_RIVETS_PER_MEMBER:,} rivets on one member",
+                join(w, "rivets"),
+            )
+        )
     if m.simple_span is not None:
         ss, ws = m.simple_span, join(w, "simple_span")
         for name, q in (("dc", ss.dc), ("dw", ss.dw)):

@@ -15,8 +15,9 @@ import json
 import pytest
 
 from core import limits
+from core.errors import InputError
 from core.survey import check_document
-from core.survey.model import RivetLineStates
+from core.survey.model import RivetLineStates, Survey
 from core.survey.validate import schema
 from tests.fuzz.cases import SURVEY_COMMANDS
 from tests.fuzz.worker import Worker
@@ -84,9 +85,27 @@ def test_rivets_per_line_and_per_member_count_the_run_and_the_states():
     assert _errors(doc) == []  # 5 x 7,994 = 39,970 rivets: within 40,000 per member
     doc["members"][0]["rivets"].append({"line": "cover_bottom_r", "run": many, "states": []})
     errs = _errors(doc)
-    assert any("47,964 rivets on one member is more than the limit of 40,000" in e for e in errs), (
-        errs
-    )
+    assert any(
+        "47,964 rivets on the member's lines is more than the limit of 40,000" in e for e in errs
+    ), errs
+
+
+def test_a_survey_beyond_the_limits_is_still_read_whole_and_only_refused_by_validation():
+    """The model (what a field store is read into) keeps everything; only validation
+    refuses: a store that grew beyond a limit stays readable and exportable, never lost."""
+    doc = document()
+    st = doc["members"][0]["stations"][0]
+    st["readings"] = [reading(f"r{i}", 8.0) for i in range(limits.MAX_READINGS + 1)]
+    st["notes"] = "n" * (limits.MAX_TEXT + 1)
+    doc["members"][0]["rivets"] = [
+        {"line": "web_top", "run": {"start": 0.0, "end": 11.0, "pitch": 1e-6}, "states": []}
+    ]
+    model = Survey.model_validate(doc)
+    assert len(model.members[0].stations[0].readings) == limits.MAX_READINGS + 1
+    with pytest.raises(InputError, match="more than the limit of 10,000 rivets on one line"):
+        model.members[0].rivet_states("web_top")  # never expanded, whatever the caller
+    errs = _errors(doc)
+    assert len(errs) == 3, errs
 
 
 def test_expanding_many_listed_states_is_fast():
