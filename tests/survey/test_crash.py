@@ -105,23 +105,31 @@ def test_sigkill_during_import_leaves_the_old_store_alone_and_the_new_one_absent
     import_survey(sample, old, who="field")
     old_digest = _digest(old)
     env = dict(os.environ, PYTHONPATH=str(ROOT))
-    rng = random.Random(11)
-    t0 = time.monotonic()
-    rounds, absent, whole = 0, 0, 0
-    while rounds < 3 or (rounds < IMPORT_ROUNDS and time.monotonic() - t0 < IMPORT_BUDGET_S):
-        rounds += 1
-        new = tmp_path / f"new-{rounds}.asf"
+
+    def start(new):
         child = subprocess.Popen(
             [sys.executable, "-c", IMPORTER, str(sample), str(new)],
             stdout=subprocess.PIPE,
             stderr=subprocess.PIPE,
             env=env,
         )
-        first = child.stdout.readline()
-        if first != b"start\n":
+        if child.stdout.readline() != b"start\n":
             child.kill()
-            pytest.fail(f"round {rounds}: importer did not start: {child.communicate()[1]!r}")
-        time.sleep(rng.uniform(0.0, 0.45))  # an import of the sample takes about 0.35 s
+            pytest.fail(f"the importer did not start: {child.communicate()[1]!r}")
+        return child
+
+    child = start(tmp_path / "timed.asf")
+    t = time.monotonic()  # how long one import takes here, now (the machine may be busy)
+    assert child.communicate()[0] == b"done\n"
+    took = time.monotonic() - t
+    rng = random.Random(11)
+    t0 = time.monotonic()
+    rounds, absent, whole = 0, 0, 0
+    while rounds < 3 or (rounds < IMPORT_ROUNDS and time.monotonic() - t0 < IMPORT_BUDGET_S):
+        rounds += 1
+        new = tmp_path / f"new-{rounds}.asf"
+        child = start(new)
+        time.sleep(rng.uniform(0.0, 1.25 * took))  # mostly mid-build, sometimes after
         child.send_signal(signal.SIGKILL)
         child.communicate()
         assert _digest(old) == old_digest, f"round {rounds}: the existing store changed"
@@ -135,4 +143,5 @@ def test_sigkill_during_import_leaves_the_old_store_alone_and_the_new_one_absent
     with FieldStore.open(old) as st:
         assert st.to_survey().document() == want
     assert rounds == absent + whole >= 3
-    print(f"import kill: {rounds} rounds, {absent} absent, {whole} complete")
+    left = len(list(tmp_path.glob(".new-*.tmp")))
+    print(f"import kill: {rounds} rounds, {absent} absent, {whole} complete, {left} temporaries")
