@@ -30,7 +30,7 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Literal
 
-from core.errors import OutputError
+from core.errors import AsfoundError, OutputError
 
 OutputKind = Literal["pdf", "survey", "store"]
 
@@ -251,14 +251,14 @@ def atomic_output(out: str | Path, *, replace: bool = True) -> Iterator[Path]:
     linked into place, which fails when ``out`` appeared meanwhile.
 
     Raises:
-        OutputError: ``replace`` is False and ``out`` exists; OSError: the folder cannot
-        be written.
+        OutputError: ``replace`` is False and ``out`` exists, or the file cannot be
+        written (no room, no permission, a file where a folder should be).
     """
     o = Path(out)
     folder = o.parent
-    folder.mkdir(parents=True, exist_ok=True)
     tmp = folder / f".{o.name}.{secrets.token_hex(6)}.tmp"
     try:
+        folder.mkdir(parents=True, exist_ok=True)
         yield tmp
         if not tmp.exists():
             raise OSError(f"{tmp}: the temporary output was not written")
@@ -267,23 +267,35 @@ def atomic_output(out: str | Path, *, replace: bool = True) -> Iterator[Path]:
         if replace:
             os.replace(tmp, o)
         else:
-            try:
-                os.link(tmp, o)
-            except FileExistsError:
-                raise OutputError(
-                    f"refusing to write to {o}: a file of that name appeared meanwhile; "
-                    "nothing was replaced"
-                ) from None
-            except OSError:  # no hard links on this file system: rename, checked first
-                if o.exists():
-                    raise OutputError(
-                        f"refusing to write to {o}: a file of that name appeared meanwhile"
-                    ) from None
-                os.rename(tmp, o)
+            _link_new(tmp, o)
         _fsync_folder(folder)
+    except OSError as e:
+        if isinstance(e, AsfoundError):
+            raise
+        raise OutputError(
+            f"cannot write {o}: {e.strerror or e}; nothing was replaced", where=""
+        ) from None
     finally:
         for extra in (tmp, *(tmp.with_name(tmp.name + s) for s in _COMPANIONS)):
-            extra.unlink(missing_ok=True)
+            with suppress(OSError):
+                extra.unlink(missing_ok=True)
+
+
+def _link_new(tmp: Path, o: Path) -> None:
+    """Put ``tmp`` at ``o`` only if nothing is there (a hard link fails on an existing name)."""
+    try:
+        os.link(tmp, o)
+    except FileExistsError:
+        raise OutputError(
+            f"refusing to write to {o}: a file of that name appeared meanwhile; "
+            "nothing was replaced"
+        ) from None
+    except OSError:  # no hard links on this file system: rename, checked just before
+        if o.exists():
+            raise OutputError(
+                f"refusing to write to {o}: a file of that name appeared meanwhile"
+            ) from None
+        os.rename(tmp, o)
 
 
 def write_atomic(out: str | Path, data: bytes) -> Path:

@@ -243,3 +243,12 @@ def test_identify_reads_content_not_names(tmp_path, store):
     assert identify(tmp_path).kind == "folder"
     with pytest.raises(OutputError, match="it is a folder"):
         check_output(tmp_path, [], "pdf", force=True)
+
+
+def test_an_output_that_cannot_be_written_is_an_asfound_error(tmp_path, survey, capsys):
+    blocker = tmp_path / "plain.txt"
+    blocker.write_text("a file where a folder is wanted", encoding="utf-8")
+    assert main(["report", str(survey), "-o", str(blocker / "r.pdf")]) == 2
+    err = capsys.readouterr().err
+    assert f"cannot write {blocker / 'r.pdf'}" in err
+    assert blocker.read_text(encoding="utf-8") == "a file where a folder is wanted"

@@ -4,7 +4,7 @@ Three kinds of input, each a hypothesis strategy of cases and a function that tu
 into the files and the commands the worker runs:
 
 * ``survey``: a sample survey file, mutated (:mod:`tests.fuzz.mutate`); validate, assess
-  (table and JSON) and report;
+  (table and JSON), report, import into a new store and export it again;
 * ``section``: the sample section description, mutated, or a random one
   (:mod:`tests.fuzz.sections`); ``asfound section`` in both unit systems and as JSON;
 * ``store``: a field store of the SI sample with an entry mutated or its bytes damaged
@@ -41,6 +41,8 @@ SURVEY_COMMANDS = [
     ["assess", "{dir}/in.json"],
     ["assess", "{dir}/in.json", "--json"],
     ["report", "{dir}/in.json", "-o", "{dir}/out.pdf"],
+    ["import", "{dir}/in.json", "-o", "{dir}/new.asf"],
+    ["export", "{dir}/new.asf", "-o", "{dir}/out.json"],
 ]
 SECTION_COMMANDS = [
     ["section", "{dir}/in.json"],
