@@ -139,7 +139,13 @@ def same_file(a: str | Path, b: str | Path) -> bool:
 
 
 def _companion_of(out: Path, inp: Path) -> bool:
-    return any(same_file(out, inp.with_name(inp.name + s)) for s in _COMPANIONS)
+    """True when ``out`` names the -wal, -shm or -journal file of the store ``inp`` (which
+    need not exist yet: SQLite makes it when the store is next opened)."""
+    if not any(same_file(out, inp.with_name(inp.name + s)) for s in _COMPANIONS):
+        return False
+    with suppress(OSError), inp.open("rb") as f:
+        return f.read(16) == _SQLITE
+    return False
 
 
 def check_output(

@@ -113,8 +113,8 @@ def export_survey(
     same survey is replaced; any other existing file only with ``force``.
 
     Raises:
-        OutputError: the path is refused; StoreError: the store cannot be opened;
-        OSError: the file cannot be written.
+        OutputError: the path is refused or cannot be written; StoreError: the store
+        cannot be opened or its content is damaged.
     """
     inputs: list[Path] = []
     if isinstance(source, Survey):
