@@ -1,7 +1,8 @@
 """``asfound import FILE -o STORE``: a survey file into a new field store.
 
 The whole file is checked first; a file with errors is refused and nothing is written.
-An existing store is never overwritten.
+The new store is built beside its final name and linked into place when complete; an
+existing file (a store or anything else) is never replaced.
 """
 
 from __future__ import annotations
@@ -16,7 +17,8 @@ def register(sub: argparse._SubParsersAction) -> None:
         "import",
         help="read a survey file into a new field store",
         description="Read a survey file (asfound.survey JSON) into a new field store. "
-        "A file with errors is refused; an existing store is never overwritten.",
+        "A file with errors is refused; the output must not exist (an existing store "
+        "or any other file is never replaced).",
     )
     p.add_argument("file", metavar="FILE", help="survey JSON file")
     p.add_argument("-o", "--output", required=True, metavar="STORE", help="new store file")

@@ -1,6 +1,9 @@
 """``asfound report FILE -o OUT.pdf`` or ``asfound report DIR -o OUTDIR``: condition reports.
 
-A single survey that fails validation writes no PDF and exits 2 with the list of errors. For
+A single survey that fails validation writes no PDF and exits 2 with the list of errors. The
+output is checked first (:mod:`core.outputs`): never the input, a field store, a survey file
+or a section description; an earlier asfound PDF is replaced, any other file only with
+``--force``. For
 a folder, every survey file (``*.json``) and field store in it is reported in turn with a
 progress bar on stderr and one summary line per survey on stdout; a bad file never stops
 the rest, and the exit status is 1 when any survey failed (they are listed at the end).
@@ -15,6 +18,7 @@ from pathlib import Path
 from core import CAUTION
 from core.choices import add_arguments
 from core.errors import AsfoundError
+from core.outputs import check_output_folder
 from core.survey import is_store_file
 
 BAR = 24
@@ -34,6 +38,12 @@ def register(sub: argparse._SubParsersAction) -> None:
         metavar="OUT",
         help="PDF to write (folder input: the folder for the PDFs); default: the input's "
         "name with .pdf in the current folder (folder input: ./reports)",
+    )
+    p.add_argument(
+        "--force",
+        action="store_true",
+        help="replace an existing file that asfound did not write (an earlier asfound "
+        "report is replaced without it; an input, a field store or a survey file never is)",
     )
     p.add_argument("--units", choices=("si", "us"), help="unit system (default: the survey's)")
     add_arguments(p)
@@ -85,13 +95,16 @@ def run_folder(folder: Path, outdir: Path, units: str | None, args: argparse.Nam
             f"asfound: error: {folder}: no survey files (*.json) or field stores", file=sys.stderr
         )
         return 2
+    check_output_folder(outdir, [folder])
     outdir.mkdir(parents=True, exist_ok=True)
     outs = _outputs(files, outdir)
     failed: list[tuple[str, str]] = []
     for i, f in enumerate(files):
         _bar(i, len(files), f.name)
         try:
-            rep = build_report(f, outs[f], units=units, args=args)
+            rep = build_report(
+                f, outs[f], units=units, args=args, force=getattr(args, "force", False)
+            )
         except Exception as e:  # one bad file never stops the rest
             msg = str(e).strip()
             failed.append((f.name, msg))
@@ -118,7 +131,9 @@ def handler(args: argparse.Namespace) -> int:
     if out.is_dir():
         out = out / (src.stem + ".pdf")
     try:
-        rep = build_report(src, out, units=args.units, args=args)
+        rep = build_report(
+            src, out, units=args.units, args=args, force=getattr(args, "force", False)
+        )
     except AsfoundError as e:
         print(f"asfound: error: {e}", file=sys.stderr)
         print(f"asfound: no report written ({out} untouched)", file=sys.stderr)

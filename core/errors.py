@@ -35,6 +35,11 @@ class SchemaError(InputError):
     """A document does not follow the asfound file format (or is of a newer version)."""
 
 
+class OutputError(InputError):
+    """An output path that would destroy an input, a field store or a file of another kind
+    (see :mod:`core.outputs`)."""
+
+
 class StoreError(OSError, AsfoundError):
     """The field store cannot be opened, is damaged or is locked."""
 

@@ -7,6 +7,7 @@ to the internal unit of their kind once, on entry; display and reports convert b
 from __future__ import annotations
 
 import math
+import re
 from dataclasses import dataclass
 from functools import lru_cache
 from typing import Literal
@@ -114,13 +115,45 @@ def to_internal(value: float, unit: str, kind: str, *, where: str = "") -> float
     """
     if kind not in INTERNAL:
         raise UnitError(f"unknown quantity kind {kind!r}; known: {sorted(INTERNAL)}", where=where)
+    if isinstance(value, bool):
+        raise UnitError(f"{value!r} is not a number", where=where)
     try:
         v = float(value)
     except (TypeError, ValueError):
         raise UnitError(f"{value!r} is not a number", where=where) from None
+    except OverflowError:
+        raise UnitError(f"{_short(value)} is too large a number", where=where) from None
     if not math.isfinite(v):
         raise UnitError(f"{value!r} is not a finite number", where=where)
-    return v * _factor(unit, kind, where)
+    out = v * _factor(unit, kind, where)
+    if not math.isfinite(out):
+        raise UnitError(f"{v:g} {unit} is too large a number in {INTERNAL[kind]}", where=where)
+    return out
+
+
+def _short(value: object, n: int = 30) -> str:
+    s = repr(value)
+    return s if len(s) <= n else f"{s[:n]}... ({len(s)} characters)"
+
+
+#: longest unit text read (a unit is a few names, products, quotients and small powers)
+MAX_UNIT_TEXT = 64
+_SMALL_POWER = re.compile(r"(\*\*|\^)\s*[-+]?\d{1,2}(?![\d.eE*^])")
+
+
+def _unit_text(unit: object, kind: str, where: str) -> str:
+    """The unit text, refused before pint reads it when it is long or holds numbers other
+    than small integer powers (pint evaluates numbers, and ``10**10**10`` never ends)."""
+    u = str(unit)
+    if len(u) > MAX_UNIT_TEXT:
+        raise UnitError(f"unit {_short(u)} is longer than {MAX_UNIT_TEXT} characters", where=where)
+    if any(c.isdigit() for c in _SMALL_POWER.sub("", u)):
+        raise UnitError(
+            f"unit {u!r} holds a number; a unit may hold only names and small powers "
+            f"such as mm**2 (expected something convertible to {INTERNAL[kind]})",
+            where=where,
+        )
+    return u
 
 
 @lru_cache(maxsize=512)
@@ -130,8 +163,9 @@ def _scale(unit: str, target: str) -> float:
 
 
 def _factor(unit: str, kind: str, where: str) -> float:
+    text = _unit_text(unit, kind, where)
     try:
-        return _scale(str(unit), INTERNAL[kind])
+        return _scale(text, INTERNAL[kind])
     except pint.errors.UndefinedUnitError:
         raise UnitError(f"unknown unit {unit!r}", where=where) from None
     except pint.errors.DimensionalityError:
@@ -140,8 +174,10 @@ def _factor(unit: str, kind: str, where: str) -> float:
             f"(expected something convertible to {INTERNAL[kind]})",
             where=where,
         ) from None
-    except (AttributeError, TypeError, ValueError, AssertionError) as e:
-        raise UnitError(f"unit {unit!r} cannot be read ({e})", where=where) from None
+    except Exception as e:  # pint's parser raises many kinds (ZeroDivisionError for "1/0")
+        raise UnitError(
+            f"unit {unit!r} cannot be read ({type(e).__name__}: {e})", where=where
+        ) from None
 
 
 def from_internal(value: float, kind: str, unit: str) -> float:

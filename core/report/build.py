@@ -1,12 +1,11 @@
 """Build the condition report PDF: cover and cautions, one part per member, assumptions,
-edit history and the review block. Written to a temporary file and renamed into place, so a
-failed build never leaves a partial PDF."""
+edit history and the review block. The output path is checked first (never an input, a
+store or a survey file: :mod:`core.outputs`); the PDF is written to a temporary file and
+renamed into place, so a failed build never leaves a partial PDF."""
 
 from __future__ import annotations
 
 import argparse
-import os
-import tempfile
 from dataclasses import dataclass, replace
 from pathlib import Path
 
@@ -16,6 +15,7 @@ from core.assess import Assessment, AssessOptions, assess, options_from_dict
 from core.checks.flags import Level
 from core.choices import options_for
 from core.errors import InputError
+from core.outputs import atomic_output, check_output
 from core.report import cover, member, notes
 from core.report.page import PageInfo, canvas_maker, document
 from core.report.source import Source, read_source
@@ -69,22 +69,23 @@ def render(
     src: Source,
     out: str | Path,
     system: str,
+    *,
+    force: bool = False,
 ) -> Report:
-    """Write the report of an assessment to ``out`` (atomically)."""
-    out = Path(out)
-    out.parent.mkdir(parents=True, exist_ok=True)
+    """Write the report of an assessment to ``out`` (atomically; ``force``: see
+    :func:`core.outputs.check_output`).
+
+    Raises:
+        OutputError: ``out`` is the input, a store, a survey file or (without ``force``)
+        a file asfound did not write.
+    """
+    out = check_output(out, [src.path], "pdf", force=force)
     size = page_size(system)
     info = PageInfo(a.survey_id, a.title, src.checksum, a.family.short if a.family else "")
-    fd, tmp = tempfile.mkstemp(prefix=f".{out.name}.", suffix=".tmp", dir=out.parent)
-    os.close(fd)
-    try:
-        doc = document(tmp, size, info)
+    with atomic_output(out) as tmp:
+        doc = document(str(tmp), size, info)
         flow = story(survey, a, problems, src, system, size[0] - 2 * MARGIN, info)
         doc.build(flow, canvasmaker=canvas_maker(info))
-        os.replace(tmp, out)
-    except BaseException:
-        Path(tmp).unlink(missing_ok=True)
-        raise
     return Report(out, info.pages, a.level, src.checksum, tuple(info.figures), a)
 
 
@@ -96,6 +97,7 @@ def build_report(
     standard: str | None = None,
     options: AssessOptions | None = None,
     args: argparse.Namespace | None = None,
+    force: bool = False,
 ) -> Report:
     """Validate and assess the survey at ``path`` and write its condition report to ``out``.
 
@@ -110,13 +112,17 @@ def build_report(
         standard: a family key (``"aashto"``, ``"aisc"``, ``"en1993"``); None keeps the choice.
         options: assessment options (used when ``args`` is None).
         args: parsed command line of ``asfound report`` (see :mod:`core.choices`).
+        force: replace an existing file that asfound did not write (never an input, a
+            store or a survey file; see :func:`core.outputs.check_output`).
 
     Raises:
+        OutputError: the output path is refused (checked before any work);
         SchemaError: the survey fails validation (no PDF is written); InputError: a bad
         option or file; any error of the assessment, with its place.
     """
     if units not in (None, "si", "us"):
         raise InputError(f"unit system {units!r} is not 'si' or 'us'")
+    check_output(out, [path], "pdf", force=force)
     survey, problems, src = read_source(path)
     if args is not None:
         opts = options_for(args, survey)
@@ -128,4 +134,4 @@ def build_report(
         opts = replace(opts, standard=standard)
     a = assess(survey, opts, tuple(problems))
     system = units or survey.survey.unit_system
-    return render(survey, a, problems, src, out, system)
+    return render(survey, a, problems, src, out, system, force=force)

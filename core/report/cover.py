@@ -17,6 +17,7 @@ from core.report.styles import (
     INK,
     LEVEL_COLOUR,
     Styles,
+    cell_text,
     esc,
     level_markup,
 )
@@ -135,7 +136,7 @@ def cover(
         ),
         ("Produced", f"{_dt.date.today().isoformat()} by asfound {__version__}"),
     ]
-    rows = [[Paragraph(esc(k), st.head), Paragraph(esc(v), st.cell)] for k, v in info if v]
+    rows = [[Paragraph(esc(k), st.head), cell_text(v, st.cell, width * 0.78)] for k, v in info if v]
     t = Table(rows, colWidths=[width * 0.22, width * 0.78], hAlign="LEFT")
     t.setStyle(
         TableStyle(

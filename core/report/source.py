@@ -8,6 +8,7 @@ from pathlib import Path
 
 from core.errors import InputError
 from core.survey import FieldStore, HistoryEntry, Problem, Survey, is_store_file, load_survey
+from core.survey.document import store_content
 
 
 @dataclass(frozen=True)
@@ -48,6 +49,6 @@ def read_source(path: str | Path) -> tuple[Survey, list[Problem], Source]:
     survey, problems = load_survey(p)
     history: tuple[HistoryEntry, ...] = ()
     if store:
-        with FieldStore.open(p) as fs:
+        with FieldStore.open(p) as fs, store_content(p):
             history = tuple(fs.history())
     return survey, list(problems), Source(str(path), p.name, checksum(data), store, history)

@@ -21,7 +21,7 @@ from reportlab.lib.styles import ParagraphStyle
 from reportlab.lib.units import mm
 from reportlab.pdfbase import pdfmetrics
 from reportlab.pdfbase.ttfonts import TTFont
-from reportlab.platypus import TableStyle
+from reportlab.platypus import Paragraph, TableStyle
 
 from core.checks.flags import Level
 
@@ -74,6 +74,29 @@ def text(s: object) -> str:
 def esc(s: object) -> str:
     """Survey text for a Paragraph: printed literally (``<``, ``>``, ``&`` escaped)."""
     return escape(text(s))
+
+
+#: tallest a table cell of survey text may grow (pt): a table row cannot split across pages,
+#: so a longer text is cut, and the cell says how much was left out
+MAX_CELL_HEIGHT = 260.0
+
+
+def cell_text(s: object, style: ParagraphStyle, width: float) -> Paragraph:
+    """A table cell that prints survey text literally, ``width`` pt wide (padding included);
+    cut when it would be taller than :data:`MAX_CELL_HEIGHT`, never a layout error."""
+    raw = text(s)
+    w = max(width - 6.0, 12.0)
+    p = Paragraph(escape(raw), style)
+    rough = len(raw) * 0.6 * style.fontSize / w * style.leading  # height if it all wraps
+    if rough < MAX_CELL_HEIGHT / 2:
+        return p
+    h = p.wrap(w, 1e9)[1]
+    n = len(raw)
+    while h > MAX_CELL_HEIGHT and n > 0:
+        n = int(n * min(0.9, 0.95 * MAX_CELL_HEIGHT / h))
+        p = Paragraph(f"{escape(raw[:n])} <i>[… {len(raw) - n:,} more characters]</i>", style)
+        h = p.wrap(w, 1e9)[1]
+    return p
 
 
 def page_size(system: str) -> tuple[float, float]:

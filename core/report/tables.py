@@ -23,7 +23,16 @@ from core.report.fmt import (
     unit_label,
     value,
 )
-from core.report.styles import BAND, MUTED, Markup, Styles, esc, level_markup, make_table_style
+from core.report.styles import (
+    BAND,
+    MUTED,
+    Markup,
+    Styles,
+    cell_text,
+    esc,
+    level_markup,
+    make_table_style,
+)
 
 #: the gross-section properties shown for a governing station, in this order
 PROPS = ("A", "yc", "Ix", "Iy", "S_top", "S_bot", "Zx", "y_pna", "rx", "ry")
@@ -59,10 +68,16 @@ def grid(
     def cell(v, j, head=False):
         if isinstance(v, Paragraph):
             return v
-        s = v if isinstance(v, Markup) else esc(v)
-        if head:
-            return Paragraph(s, st.head_num if j in num_cols else st.head)
-        return Paragraph(s, st.cell_num if j in num_cols else st.cell)
+        style = (
+            (st.head_num if head else st.cell_num)
+            if j in num_cols
+            else st.head
+            if head
+            else st.cell
+        )
+        if isinstance(v, Markup):
+            return Paragraph(v, style)
+        return cell_text(v, style, widths[j])
 
     data = [[cell(h, j, True) for j, h in enumerate(header)]]
     data += [[cell(v, j) for j, v in enumerate(r)] for r in rows]

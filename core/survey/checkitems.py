@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import math
 
+from core import limits
 from core.definition import SectionDefinition
 from core.errors import AsfoundError
 from core.errors import where as join
@@ -134,12 +135,12 @@ def check_reading(
     v = _kind(r.value, r.unit, "length", join(w, "unit"), probs)
     if v is None:
         return probs
-    if not math.isfinite(v) or v <= 0.0 or v > ABSURD_MM:
+    if not math.isfinite(v) or v < limits.MIN_LENGTH_MM or v > ABSURD_MM:
         probs.append(
             Problem(
                 "error",
-                f"thickness {r.value:g} {r.unit} is outside the allowed range (greater than 0, up to "
-                f"{ABSURD_MM:g} mm; nominal {part.t:g} mm)",
+                f"thickness {r.value:g} {r.unit} is outside the allowed range "
+                f"({limits.MIN_LENGTH_MM:g} to {ABSURD_MM:g} mm; nominal {part.t:g} mm)",
                 w,
             )
         )

@@ -1,20 +1,24 @@
 """The interchange file: a JSON document ``asfound.survey`` version 1.
 
 Its JSON Schema (draft 2020-12) is ``core/schema/survey-1.schema.json``; the format is
-described in ``docs/survey-format.md``. Export writes through a temporary file and a rename;
-import checks the whole document first and builds a new store in a temporary file, renamed
-into place only when complete, so a refused file changes nothing.
+described in ``docs/survey-format.md``. Export and import check their output path first
+(:mod:`core.outputs`: never over an input, a store or another survey). Export writes through
+a temporary file and a rename; import checks the whole document first and builds a new store
+in a temporary file, linked into place only when complete, so a refused file changes nothing.
 """
 
 from __future__ import annotations
 
 import json
-import os
-import tempfile
+import sqlite3
+from collections.abc import Iterator
+from contextlib import contextmanager
 from pathlib import Path
 from typing import Any
 
-from core.errors import InputError, SchemaError, StoreError
+from core.errors import AsfoundError, InputError, OutputError, SchemaError, StoreError
+from core.jsonfile import read_json
+from core.outputs import atomic_output, check_output, write_atomic
 from core.survey.model import Survey
 from core.survey.problems import Problem, errors
 from core.survey.store import FieldStore
@@ -33,31 +37,33 @@ def is_store_file(path: str | Path) -> bool:
 
 
 def read_document(path: str | Path) -> Any:
-    """Parse a survey file as JSON (no checks of its content).
+    """Parse a survey file as JSON (no checks of its content; see :func:`core.jsonfile.read_json`).
 
     Raises:
-        InputError: file not found; SchemaError: unreadable, not UTF-8, or not valid JSON.
+        InputError: file not found; SchemaError: too large, unreadable, not UTF-8, or not
+        valid JSON.
     """
-    p = Path(path)
+    return read_json(path, "survey file")
+
+
+@contextmanager
+def store_content(path: str | Path) -> Iterator[None]:
+    """Turn a failure to read a store's entries (damaged JSON in a row, an entry the model
+    refuses, text that is not UTF-8) into a :class:`StoreError` naming the store.
+
+    Raises:
+        StoreError: for any such failure inside the block.
+    """
     try:
-        text = p.read_text(encoding="utf-8")
-    except FileNotFoundError:
-        raise InputError("file not found", where=str(p)) from None
-    except (OSError, UnicodeDecodeError) as e:
-        raise SchemaError(f"cannot read the file: {e}", where=str(p)) from None
-    try:
-        return json.loads(text, parse_constant=_no_constant)
-    except json.JSONDecodeError as e:
-        raise SchemaError(
-            f"not valid JSON (line {e.lineno}, column {e.colno}: {e.msg}); truncated or damaged?",
-            where=str(p),
+        yield
+    except AsfoundError:
+        raise
+    except (ValueError, KeyError, TypeError, AttributeError, sqlite3.Error) as e:
+        detail = " ".join(str(e).split())[:400]
+        raise StoreError(
+            f"{path}: the store's content is damaged and cannot be read as a survey "
+            f"({type(e).__name__}: {detail})"
         ) from None
-    except ValueError as e:
-        raise SchemaError(str(e), where=str(p)) from None
-
-
-def _no_constant(name: str) -> Any:
-    raise ValueError(f"{name} is not a number a survey file may hold (JSON has no {name})")
 
 
 def check_file(path: str | Path) -> tuple[Survey | None, list[Problem]]:
@@ -68,7 +74,7 @@ def check_file(path: str | Path) -> tuple[Survey | None, list[Problem]]:
     """
     p = Path(path)
     if is_store_file(p):
-        with FieldStore.open(p) as store:
+        with FieldStore.open(p) as store, store_content(p):
             doc = store.to_survey().document()
         return check_document(doc, str(p))
     return check_document(read_document(p), str(p))
@@ -97,67 +103,60 @@ def export_document(survey: Survey) -> str:
     return json.dumps(survey.document(), indent=2, ensure_ascii=False, allow_nan=False) + "\n"
 
 
-def export_survey(source: FieldStore | Survey | str | Path, path: str | Path) -> Path:
+def export_survey(
+    source: FieldStore | Survey | str | Path, path: str | Path, *, force: bool = False
+) -> Path:
     """Write a survey (a model, an open store, or a store file) to ``path`` atomically.
 
+    The path is checked first (:func:`core.outputs.check_output`): never the store itself,
+    another store, another survey's file or a section description; an earlier export of the
+    same survey is replaced; any other existing file only with ``force``.
+
     Raises:
-        StoreError: the store cannot be opened; OSError: the file cannot be written.
+        OutputError: the path is refused or cannot be written; StoreError: the store
+        cannot be opened or its content is damaged.
     """
+    inputs: list[Path] = []
     if isinstance(source, Survey):
         survey = source
     elif isinstance(source, FieldStore):
-        survey = source.to_survey()
+        inputs.append(Path(source.path))
+        with store_content(source.path):
+            survey = source.to_survey()
     else:
-        with FieldStore.open(source) as store:
+        inputs.append(Path(source))
+        with FieldStore.open(source) as store, store_content(source):
             survey = store.to_survey()
-    text = export_document(survey)
-    out = Path(path)
-    fd, tmp = tempfile.mkstemp(prefix=f".{out.name}.", suffix=".tmp", dir=out.parent or ".")
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8") as f:
-            f.write(text)
-            f.flush()
-            os.fsync(f.fileno())
-        os.replace(tmp, out)
-    except BaseException:
-        Path(tmp).unlink(missing_ok=True)
-        raise
-    return out
+    out = check_output(path, inputs, "survey", force=force, survey_id=survey.survey.id)
+    return write_atomic(out, export_document(survey).encode("utf-8"))
 
 
 def import_survey(path: str | Path, store_path: str | Path, *, who: str = "import") -> Path:
     """Import a survey file into a **new** store at ``store_path``.
 
     The whole file is checked first; the store is built in a temporary file next to
-    ``store_path`` in one transaction and renamed into place when complete.
+    ``store_path`` in one transaction and linked into place when complete, so the new
+    store is either absent or whole, and nothing that exists is ever replaced.
 
     Raises:
-        SchemaError: the file is malformed, truncated, of a newer version or has errors of
-        meaning (unknown ids, values out of range, ...); StoreError: ``store_path`` exists.
+        OutputError: ``store_path`` exists or is the input; SchemaError: the file is
+        malformed, truncated, of a newer version or has errors of meaning (unknown ids,
+        values out of range, ...).
     """
-    dst = Path(store_path)
-    if dst.exists():
-        raise StoreError(f"{dst}: a file of that name exists; a store is never overwritten")
+    dst = check_output(store_path, [path], "store")
     survey, _warnings = load_survey(path)
     doc = survey.document()
-    fd, tmpname = tempfile.mkstemp(prefix=f".{dst.name}.", suffix=".tmp", dir=dst.parent or ".")
-    os.close(fd)
-    tmp = Path(tmpname)
-    tmp.unlink()
     try:
-        store = FieldStore.create(tmp, doc["survey"], note=doc.get("note", ""), who=who)
-        try:
-            with store.batch(who):
-                for m in doc["members"]:
-                    store.add_member(m, who)
-        finally:
-            store.close()
-        if dst.exists():
-            raise StoreError(f"{dst}: a file of that name appeared meanwhile; not overwritten")
-        os.replace(tmp, dst)
+        with atomic_output(dst, replace=False) as tmp:
+            store = FieldStore.create(tmp, doc["survey"], note=doc.get("note", ""), who=who)
+            try:
+                with store.batch(who):
+                    for m in doc["members"]:
+                        store.add_member(m, who)
+            finally:
+                store.close()
+    except OutputError:
+        raise
     except InputError as e:
         raise SchemaError(f"the survey could not be stored: {e}", where=str(path)) from None
-    finally:
-        for extra in (tmp, Path(f"{tmp}-wal"), Path(f"{tmp}-shm")):
-            extra.unlink(missing_ok=True)
     return dst

@@ -14,6 +14,7 @@ Units of the document:
 
 from __future__ import annotations
 
+import bisect
 import math
 from typing import Any, Literal, get_args
 
@@ -26,7 +27,9 @@ from pydantic import (
     model_validator,
 )
 
+from core import limits
 from core.definition import SectionDefinition, StationLoss
+from core.errors import InputError
 from core.errors import where as join
 from core.sectionfile import definition_from_dict
 from core.survey import docversions
@@ -165,12 +168,32 @@ class LiveLoad(_Model):
 
 
 class RivetRun(_Model):
-    """Rivets at a regular ``pitch`` from ``start`` to ``end`` (position unit), all ``state``."""
+    """Rivets at a regular ``pitch`` from ``start`` to ``end`` (position unit), all ``state``.
+
+    A run has at most :data:`core.limits.MAX_RIVETS_PER_LINE` rivets, counted from its
+    numbers before any rivet is made (:meth:`count`; validation reports a longer run).
+    """
 
     start: float
     end: float
     pitch: float = Field(gt=0.0)
     state: RivetStateName = "sound"
+
+    def count(self) -> int:
+        """How many rivets the run puts on the line (0 when ``end`` is before ``start``).
+
+        Raises:
+            InputError: more than :data:`core.limits.MAX_RIVETS_PER_LINE`.
+        """
+        n = (self.end - self.start) / self.pitch  # may be inf for extreme numbers
+        if not math.isfinite(n) or n + 1e-9 >= limits.MAX_RIVETS_PER_LINE:
+            many = f"{math.floor(n + 1e-9) + 1:,}" if math.isfinite(n) else "too many"
+            raise InputError(
+                f"the run from {self.start:g} to {self.end:g} at pitch {self.pitch:g} gives "
+                f"{many} rivets, more than the limit of {limits.MAX_RIVETS_PER_LINE:,} "
+                "rivets on one line"
+            )
+        return max(math.floor(n + 1e-9), -1) + 1
 
 
 class RivetAt(_Model):
@@ -187,20 +210,51 @@ class RivetLineStates(_Model):
     run: RivetRun | None = None
     states: list[RivetAt] = Field(default_factory=list)
 
+    def count(self) -> int:
+        """Rivets of the run plus listed states (an upper bound of the line's rivets).
+
+        Raises:
+            InputError: more than :data:`core.limits.MAX_RIVETS_PER_LINE`.
+        """
+        n = (self.run.count() if self.run is not None else 0) + len(self.states)
+        return limits.count(
+            n,
+            limits.MAX_RIVETS_PER_LINE,
+            "rivets on one line (the run's and the listed states together)",
+        )
+
     def expanded(self) -> list[tuple[float, str]]:
         """Every rivet as (position, state), sorted, in the position unit; an exception at
-        the position of a run rivet (within 1 % of the pitch) replaces it."""
+        the position of a run rivet (within 1 % of the pitch) replaces it.
+
+        Raises:
+            InputError: more rivets than :data:`core.limits.MAX_RIVETS_PER_LINE` (checked
+            before any is made).
+        """
+        self.count()
         out: dict[float, str] = {}
         tol = 1e-9
-        if self.run is not None:
-            r = self.run
-            n = math.floor((r.end - r.start) / r.pitch + 1e-9)
-            for k in range(max(n, -1) + 1):
+        r, last = self.run, -1
+        if r is not None:
+            last = r.count() - 1
+            for k in range(last + 1):
                 out[round(r.start + k * r.pitch, 9)] = r.state
             tol = 0.01 * r.pitch
+        extra: list[float] = []  # sorted positions of listed states that are not run rivets
         for s in self.states:
-            hit = next((p for p in out if abs(p - s.position) <= tol), None)
-            out[hit if hit is not None else s.position] = s.state
+            hit = None
+            q = (s.position - r.start) / r.pitch if r is not None and last >= 0 else math.nan
+            if math.isfinite(q):  # the nearest rivet of the run
+                p = round(r.start + min(max(round(q), 0), last) * r.pitch, 9)
+                hit = p if abs(p - s.position) <= tol else None
+            if hit is None:
+                i = bisect.bisect_left(extra, s.position - tol)
+                if i < len(extra) and abs(extra[i] - s.position) <= tol:
+                    hit = extra[i]
+                else:
+                    bisect.insort(extra, s.position)
+                    hit = s.position
+            out[hit] = s.state
         return sorted(out.items())
 
 

@@ -20,8 +20,9 @@ from typing import Any
 import jsonschema
 from pydantic import ValidationError
 
+from core import limits
 from core.definition import SectionDefinition
-from core.errors import AsfoundError
+from core.errors import AsfoundError, InputError
 from core.errors import where as join
 from core.survey import docversions
 from core.survey.checkitems import _kind, check_cut, check_reading
@@ -104,7 +105,7 @@ def check_document(doc: Any, where: str = "") -> tuple[Survey | None, list[Probl
     errs = sorted(validator.iter_errors(work), key=lambda e: list(map(str, e.absolute_path)))
     for e in errs:
         path = tuple(e.absolute_path)
-        probs.append(Problem("error", e.message, join(where, place_of(doc, path))))
+        probs.append(Problem("error", _schema_message(e), join(where, place_of(doc, path))))
     model: Survey | None = None
     if not errs or _prune(work, [tuple(e.absolute_path) for e in errs]):
         if ver < VERSION:
@@ -125,13 +126,23 @@ def check_document(doc: Any, where: str = "") -> tuple[Survey | None, list[Probl
             except ValidationError as ve:
                 locs = [tuple(x["loc"]) for x in ve.errors()]
                 for x in ve.errors():
-                    probs.append(Problem("error", x["msg"], join(where, place_of(work, x["loc"]))))
+                    msg = x["msg"] if len(x["msg"]) <= 300 else x["msg"][:300] + "..."
+                    probs.append(Problem("error", msg, join(where, place_of(work, x["loc"]))))
                 if not _prune(work, locs):
                     break
     if model is None:
         probs.append(Problem("note", "the meaning of the survey was not checked", where))
         return None, probs
     return model, probs + check_survey(model, where)
+
+
+def _schema_message(e: jsonschema.ValidationError) -> str:
+    """The schema's message, with a size limit said in words (not the whole list or text)."""
+    if e.validator in ("maxItems", "maxLength"):
+        what = "items" if e.validator == "maxItems" else "characters"
+        return f"{len(e.instance):,} {what} is more than the limit of {e.validator_value:,}"
+    msg = e.message
+    return msg if len(msg) <= 300 else f"{msg[:300]}... ({len(msg):,} characters)"
 
 
 def _range(v: float | None, lo: float, hi: float, name: str, unit: str, w: str, probs) -> None:
@@ -191,6 +202,16 @@ def check_survey(s: Survey, where: str = "") -> list[Problem]:
         probs.append(
             Problem("warning", "neither material nor year built given: set Fy before assessment", w)
         )
+    n = sum(len(m.stations) for m in s.members)
+    if n > limits.MAX_STATIONS_PER_SURVEY:
+        probs.append(
+            Problem(
+                "error",
+                f"{n:,} stations in one survey is more than the limit of "
+                f"{limits.MAX_STATIONS_PER_SURVEY:,}",
+                where,
+            )
+        )
     probs += _dupes([m.id for m in s.members], "member", where)
     for m in s.members:
         probs += check_member(m, where)
@@ -220,19 +241,28 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
     except AsfoundError as e:
         probs.append(Problem("error", f"section: {e}", w))
     pos_unit = m.position_unit
+    f = _kind(1.0, pos_unit, "length", w, [])  # mm per position unit (its errors: header)
+    total = 0
     for r in m.rivets:
         wl = join(w, f"rivet line {r.line!r}")
         if defn is not None and r.line not in {x.id for x in defn.rivet_lines}:
             known = [x.id for x in defn.rivet_lines]
             probs.append(Problem("error", f"unknown rivet line {r.line!r}; known: {known}", wl))
+        try:
+            total += r.count()
+        except InputError as e:  # counted from the numbers: nothing was expanded
+            probs.append(Problem("error", str(e), join(wl, "run") if r.run else wl))
+            continue
         if r.run is not None and r.run.end < r.run.start:
             probs.append(
                 Problem("error", f"run end {r.run.end:g} is before start {r.run.start:g}", wl)
             )
         line = next((x for x in defn.rivet_lines if x.id == r.line), None) if defn else None
-        if line is not None and r.run is not None:
+        if r.run is not None:
             recorded = _kind(r.run.pitch, pos_unit, "length", wl, probs)
-            if recorded is not None and abs(recorded / line.pitch - 1.0) > 0.05:
+            lo, hi = limits.MIN_LENGTH_MM, limits.MAX_LENGTH_MM
+            _range(recorded, lo, hi, "run pitch", "mm", wl, probs)
+            if line is not None and recorded is not None and abs(recorded / line.pitch - 1) > 0.05:
                 probs.append(
                     Problem(
                         "warning",
@@ -243,24 +273,35 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
                         wl,
                     )
                 )
-        if L is None:
+        if L is None or f is None:
             continue
-        for p, _state in r.expanded():
-            x = _kind(p, pos_unit, "length", wl, probs)
-            if x is not None and not -1e-6 <= x <= L + 1e-6:
-                probs.append(
-                    Problem(
-                        "error",
-                        f"rivet at {p:g} {pos_unit} is beyond the member (0 to "
-                        f"{L / to_internal(1.0, pos_unit, 'length'):g} {pos_unit})",
-                        wl,
-                    )
+        beyond = [p for p, _state in r.expanded() if not -1e-6 <= p * f <= L + 1e-6]
+        if beyond:
+            more = f" (and {len(beyond) - 1:,} more on the line)" if len(beyond) > 1 else ""
+            probs.append(
+                Problem(
+                    "error",
+                    f"rivet at {beyond[0]:g} {pos_unit} is beyond the member (0 to "
+                    f"{L / f:g} {pos_unit}){more}",
+                    wl,
                 )
+            )
+    if total > limits.MAX_RIVETS_PER_MEMBER:
+        probs.append(
+            Problem(
+                "error",
+                f"{total:,} rivets on the member's lines is more than the limit of "
+                f"{limits.MAX_RIVETS_PER_MEMBER:,} rivets on one member",
+                join(w, "rivets"),
+            )
+        )
     if m.simple_span is not None:
         ss, ws = m.simple_span, join(w, "simple_span")
-        _kind(ss.dc.value, ss.dc.unit, "force_per_length", join(ws, "dc"), probs)
-        if ss.dw is not None:
-            _kind(ss.dw.value, ss.dw.unit, "force_per_length", join(ws, "dw"), probs)
+        for name, q in (("dc", ss.dc), ("dw", ss.dw)):
+            if q is not None:
+                wq = join(ws, name)
+                v = _kind(q.value, q.unit, "force_per_length", wq, probs)
+                _range(v, 0.0, limits.MAX_FORCE_PER_LENGTH, name, "N/mm", wq, probs)
     if m.live_load is not None:
         probs += check_live_load(m, w)
     probs += _dupes([s.id for s in m.stations], "station", w)
@@ -323,10 +364,14 @@ def check_station(
             eff = getattr(st.loads, name)
             if eff is None:
                 continue
-            if eff.V is not None:
-                _kind(eff.V.value, eff.V.unit, "force", join(w, "loads", name, "V"), probs)
-            if eff.M is not None:
-                _kind(eff.M.value, eff.M.unit, "moment", join(w, "loads", name, "M"), probs)
+            for sym, kind, top, unit in (
+                ("V", "force", limits.MAX_FORCE_N, "N"),
+                ("M", "moment", limits.MAX_MOMENT_NMM, "N mm"),
+            ):
+                q = getattr(eff, sym)
+                if q is not None:
+                    wq = join(w, "loads", name, sym)
+                    _range(_kind(q.value, q.unit, kind, wq, probs), -top, top, sym, unit, wq, probs)
     probs += _dupes([r.id for r in st.readings], "reading", w)
     probs += _dupes([b.id for b in st.bands], "band", w)
     probs += _dupes([p.id for p in st.perforations], "perforation", w)

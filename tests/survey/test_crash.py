@@ -9,6 +9,7 @@ import sqlite3
 import subprocess
 import sys
 import time
+from pathlib import Path
 
 import pytest
 
@@ -140,3 +141,78 @@ def test_sigkill_during_undo_keeps_the_store_consistent(tmp_path):
         undone |= (added - undone) - live
     print(f"store undo SIGKILL: {rounds} rounds, {len(added)} acknowledged, {len(undone)} undone")
     assert rounds >= 3 and undone and added - undone
+
+
+IMPORTER = """
+import sys
+from core.survey import import_survey
+print("start", flush=True)
+import_survey(sys.argv[1], sys.argv[2], who="office")
+print("done", flush=True)
+"""
+
+#: rounds of the import kill test (ASFOUND_CRASH_ROUNDS runs a longer one by hand)
+IMPORT_ROUNDS = int(os.environ.get("ASFOUND_CRASH_ROUNDS", "8"))
+IMPORT_BUDGET_S = float(os.environ.get("ASFOUND_CRASH_BUDGET_S", "20"))
+
+
+def _digest(path) -> str:
+    import hashlib
+
+    return hashlib.sha256(path.read_bytes()).hexdigest()
+
+
+@pytest.mark.skipif(not hasattr(signal, "SIGKILL"), reason="needs SIGKILL")
+def test_sigkill_during_import_leaves_the_old_store_alone_and_the_new_one_absent_or_whole(
+    tmp_path,
+):
+    """``asfound import`` killed at a random moment while it builds a new store beside an
+    existing one: the existing store keeps its bytes, the new one is absent or complete."""
+    from core.survey import import_survey, load_survey
+
+    sample = ROOT / "survey_samples" / "deck-girder-si.json"
+    want = load_survey(sample)[0].document()
+    old = tmp_path / "field.asf"
+    import_survey(sample, old, who="field")
+    old_digest = _digest(old)
+    env = dict(os.environ, PYTHONPATH=str(ROOT))
+
+    def start(new):
+        child = subprocess.Popen(
+            [sys.executable, "-c", IMPORTER, str(sample), str(new)],
+            stdout=subprocess.PIPE,
+            stderr=subprocess.PIPE,
+            env=env,
+        )
+        if child.stdout.readline() != b"start\n":
+            child.kill()
+            pytest.fail(f"the importer did not start: {child.communicate()[1]!r}")
+        return child
+
+    child = start(tmp_path / "timed.asf")
+    t = time.monotonic()  # how long one import takes here, now (the machine may be busy)
+    assert child.communicate()[0] == b"done\n"
+    took = time.monotonic() - t
+    rng = random.Random(11)
+    t0 = time.monotonic()
+    rounds, absent, whole = 0, 0, 0
+    while rounds < 3 or (rounds < IMPORT_ROUNDS and time.monotonic() - t0 < IMPORT_BUDGET_S):
+        rounds += 1
+        new = tmp_path / f"new-{rounds}.asf"
+        child = start(new)
+        time.sleep(rng.uniform(0.0, 1.25 * took))  # mostly mid-build, sometimes after
+        child.send_signal(signal.SIGKILL)
+        child.communicate()
+        assert _digest(old) == old_digest, f"round {rounds}: the existing store changed"
+        if new.exists():
+            with FieldStore.open(new) as st:  # opens only if the integrity check is ok
+                assert st.to_survey().document() == want, f"round {rounds}: partial store"
+            whole += 1
+        else:
+            absent += 1
+        assert not Path(f"{new}-wal").exists() or new.exists()
+    with FieldStore.open(old) as st:
+        assert st.to_survey().document() == want
+    assert rounds == absent + whole >= 3
+    left = len(list(tmp_path.glob(".new-*.tmp")))
+    print(f"import kill: {rounds} rounds, {absent} absent, {whole} complete, {left} temporaries")

@@ -9,7 +9,7 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from core.errors import SchemaError, StoreError
+from core.errors import OutputError, SchemaError
 from core.survey.document import export_document, export_survey, import_survey, load_survey
 from core.survey.model import Survey
 from core.survey.store import FieldStore
@@ -93,7 +93,7 @@ def test_existing_store_is_never_overwritten(tmp_path):
     dst = tmp_path / "s.asf"
     import_survey(src, dst)
     before = dst.read_bytes()
-    with pytest.raises(StoreError, match="never overwritten"):
+    with pytest.raises(OutputError, match="a new store never replaces a file"):
         import_survey(src, dst)
     assert dst.read_bytes() == before
 
