@@ -8,6 +8,7 @@ import sys
 
 from core import CAUTION
 from core.assess import assess
+from core.assess.detailsout import girder_tables
 from core.assess.export import assessment_dict
 from core.choices import add_arguments, options_for
 from core.survey import load_survey
@@ -118,6 +119,9 @@ def run(args) -> int:
                     f"Member {m.member}: rating summary ({ms.name})",
                 )
             )
+        for table in girder_tables(m, system):
+            print()
+            print(table)
         worst = [f for s in m.stations for f in s.flags if f.level >= 2] + [
             f for f in m.flags if f.level >= 2
         ]

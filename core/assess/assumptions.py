@@ -4,6 +4,7 @@ methods (all in the family's own words; no other family's clause appears)."""
 
 from __future__ import annotations
 
+from core.assess.girder_assumptions import GENERAL, member_rows
 from core.assess.inputs import DEPTH_WORDS, web_geometry
 from core.assess.options import AssessOptions
 from core.assess.results import Assumption, MemberResult
@@ -17,14 +18,6 @@ def _len(mm: float, system: str) -> str:
     """A length in the survey's display unit (and mm where that is not mm)."""
     v = show(mm, "length", system)
     return f"{v.value:.4g} {v.symbol}" + ("" if v.unit == "mm" else f" ({mm:.4g} mm)")
-
-
-NOT_YET = (
-    "the limit states of the girder ends (bearing stiffeners, web crippling), lateral-torsional "
-    "and flange local buckling of the compression flange, web bend-buckling beyond the web's "
-    "own clause here, stiffener adequacy and fatigue are not yet checked: flexure and shear "
-    "are upper bounds where those govern"
-)
 
 
 def _a(c: Choice) -> Assumption:
@@ -45,13 +38,13 @@ def assumptions(
     for d in family.documents:
         src = "the family points to this document" if d.pointer else "document of the family"
         out.append(Assumption(f"document: {d.title}", f"{d.edition}: {d.role}", src))
-    out.append(Assumption("not yet checked", NOT_YET, "asfound, part 2 of the rating work"))
     for f in family.factors.values():
         out.append(Assumption(f"factor {f.symbol}", f"{f.value:.4g}: {f.description}", f.source))
     out += [_a(c) for c in family.choices]
     out += [_a(c) for c in material_notes]
     seen: set[str] = set()
     for m, rec in zip(members, survey.members, strict=True):
+        out += member_rows(m, survey.survey.unit_system)
         for f in m.factors:
             out.append(
                 Assumption(
@@ -162,11 +155,16 @@ def assumptions(
             "gross section (rivet holes filled); VQ/It not applicable where the loss splits it",
             PRACTICE,
         ),
-        Assumption("tension flange", "bottom flange in tension (sagging moment)", PRACTICE),
+        Assumption(
+            "tension flange",
+            "the bottom flange in sagging, the top one in hogging; its holes at their nominal "
+            "diameter",
+            PRACTICE,
+        ),
         Assumption(
             "panel kind",
-            "unstiffened without stiffener spacing; end panel within one spacing of a member "
-            "end; interior otherwise",
+            "unstiffened without stiffeners between the ends; the end panel next to each member "
+            "end; interior otherwise (tension field as the web panels row says)",
             PRACTICE,
         ),
         Assumption(
@@ -177,4 +175,6 @@ def assumptions(
             "statics of a simply supported span (common practice)",
         ),
     ]
+    out += list(GENERAL)
+    out += [_a(c) for c in family.rules.girder_notes()]
     return out

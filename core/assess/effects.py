@@ -167,6 +167,19 @@ def station_effects(
         return StationEffects(
             x, own.M_DC, own.V_DC, own.M_DW, own.V_DW, {**own.live, **moving}, own.source
         )
+    return effects_at(member, x, span, cases)
+
+
+def effects_at(
+    member: Member, x: float, span: float, cases: list[LiveCase]
+) -> StationEffects | None:
+    """Effects at ``x`` (mm) from the member's uniform dead loads and its live cases moved
+    over the simple span (None when there are neither): the support reactions at the ends,
+    the moment diagram between the stations.
+
+    Raises:
+        InputError / UnitError: unusable loads, with their place.
+    """
     if member.simple_span is None and not cases:
         return None
     M_DC, V_DC, M_DW, V_DW = dead_loads(member, span, x)

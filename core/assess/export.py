@@ -5,6 +5,7 @@ from __future__ import annotations
 from typing import Any
 
 from core import CAUTION
+from core.assess.detailsout import details_dict
 from core.assess.results import Assessment, LimitState, StationResult
 from core.units import display_unit, from_internal
 
@@ -34,6 +35,9 @@ def limit_state_dict(ls: LimitState, system: str) -> dict[str, Any]:
         else {"name": r.measure, "symbol": r.symbol, "value": r.value, "load": r.load},
         "reference": ls.reference,
         "note": ls.note,
+        "part_of": ls.part_of,
+        "least_of": list(ls.least_of),
+        **({"details": dict(ls.extra)} if ls.extra else {}),
     }
 
 
@@ -164,6 +168,7 @@ def assessment_dict(a: Assessment, system: str | None = None) -> dict[str, Any]:
                     }
                     for e in m.envelopes
                 ],
+                "girder": details_dict(m, system),
                 "stations": [station_dict(s, system) for s in m.stations],
             }
             for m in a.members

@@ -2,7 +2,9 @@
 
 from __future__ import annotations
 
+from collections.abc import Mapping
 from dataclasses import dataclass, field
+from typing import Any
 
 from core.checks.flags import Flag, Level, worst
 from core.checks.results import CapacityResult
@@ -39,6 +41,16 @@ class LimitState:
             the rating (None: not rated).
         per_effect: capacity unit per unit of the effect (1; Q/I in 1/mm for a rivet line,
             whose shear flow is q = V Q / I), to give the demand in the capacity's unit.
+        at: the load effects this limit state is rated with where they are not the
+            station's (a girder end: the effects at its support, whose shear is the
+            reaction). None: the station's.
+        part_of: the key of the limit state this one is a component of (the flexural limit
+            states of the least flexure): shown and flagged with its rating, but the
+            member's summary and the station's governing limit state take the whole.
+        least_of: the keys of the components of a least (the flexure).
+        flags: findings of the limit state itself (an element gone, a fatigue life), with
+            the number that drove each.
+        extra: plain data of the limit state for the JSON (fatigue lives, panels).
     """
 
     key: str
@@ -55,6 +67,11 @@ class LimitState:
     flexural: bool = False
     R_effect: float | None = None
     per_effect: float = 1.0
+    at: Any = None
+    part_of: str | None = None
+    least_of: tuple[str, ...] = ()
+    flags: tuple[Flag, ...] = ()
+    extra: Mapping[str, Any] = field(default_factory=dict)
 
     @property
     def ratio(self) -> float | None:
@@ -114,10 +131,11 @@ class StationResult:
     def governing(self) -> LimitState | None:
         """The limit state with the worst rating (lowest RF, highest D/C or utilisation),
         else the lowest capacity ratio."""
-        rated = [ls for ls in self.limit_states if ls.rating is not None]
+        whole = [ls for ls in self.limit_states if ls.part_of is None]
+        rated = [ls for ls in whole if ls.rating is not None]
         if rated:
             return min(rated, key=lambda ls: ls.rating.badness)
-        ratioed = [ls for ls in self.limit_states if ls.ratio is not None]
+        ratioed = [ls for ls in whole if ls.ratio is not None]
         return min(ratioed, key=lambda ls: ls.ratio) if ratioed else None
 
 
@@ -177,6 +195,8 @@ class MemberResult:
     summary: tuple[SummaryRow, ...] = ()
     envelopes: tuple[EnvelopeRow, ...] = ()
     factors: tuple = ()
+    details: Any = None
+    panels: Any = None
 
     @property
     def level(self) -> Level:

@@ -3,10 +3,14 @@ against as-found, the family's limit states and measure, and the member's rating
 
 from __future__ import annotations
 
+import datetime as _dt
+
 from core.assess.assumptions import assumptions
-from core.assess.effects import LiveCase, station_effects
+from core.assess.details import MemberDetails, SupportData, member_details
+from core.assess.effects import LiveCase, effects_at, station_effects
 from core.assess.inputs import web_geometry
 from core.assess.options import AssessOptions
+from core.assess.panels import layout
 from core.assess.results import (
     Assessment,
     EnvelopeRow,
@@ -18,7 +22,6 @@ from core.assess.rivetlines import summarise_line
 from core.assess.station import (
     checks,
     design_effects,
-    panel_at,
     panel_thickness,
     part_loss_percent,
     rate,
@@ -30,7 +33,7 @@ from core.checks.flags import Flag, Level, flag_rivet_line
 from core.errors import InputError
 from core.families import build_family
 from core.families.base import Family
-from core.families.context import StationContext
+from core.families.context import MemberSetup, StationContext
 from core.families.liveload import NOT_RECORDED
 from core.section import analyse
 from core.survey.model import Member, Survey
@@ -64,24 +67,52 @@ def assess_member(
     all_effects = {}
     readings = web_readings(member, web.web_id)
     cache: dict = {}
+    policy = opts.thickness_policy
+    details = member_details(member, span, policy, web.D_web)
+    t_nom = defn.part(web.web_id).t
+    panels = layout(
+        details, span, do, readings, t_nom, policy, rules.stiffener_check(defn, web, D, material)
+    )
+    xs: dict[str, float] = {}
     for st in member.stations:
-        place = member.place(st.id)
         x = st.position_mm(member)
         if not 0.0 <= x <= span:
             raise InputError(
                 f"station position {st.position:g} {member.position_unit} is outside the member "
                 f"(0 to {member.span.value:g} {member.span.unit})",
-                where=place,
+                where=member.place(st.id),
             )
-        loss = st.loss(member, opts.thickness_policy)
-        found = analyse(defn, loss)
+        xs[st.id] = x
+    found_all = {st.id: analyse(defn, st.loss(member, policy)) for st in member.stations}
+    design = rules.design_keys(cases, opts)
+    moments: dict[float, float | None] = {}
+
+    def moment(x: float) -> float | None:
+        if x not in moments:
+            eff = effects_at(member, x, span, cases)
+            moments[x] = design_effects(family, eff, design).get("M")
+        return moments[x]
+
+    setup = MemberSetup(
+        details,
+        panels,
+        moment,
+        {s.id: effects_at(member, s.x, span, cases) for s in details.supports},
+        found_all,
+        _age(survey),
+    )
+    at_station, unattached = attach_supports(details, xs, web.D_web)
+    for st in member.stations:
+        place = member.place(st.id)
+        x = xs[st.id]
+        found = found_all[st.id]
         effects = station_effects(member, st, x, span, cases)
         all_effects[st.id] = effects
         keys = ["station"] if effects is not None and "station" in effects.live else []
-        keys = keys or rules.design_keys(cases, opts)
-        tw, tw_words = panel_thickness(
-            st.id, readings, defn.part(web.web_id).t, do, span, opts.thickness_policy
-        )
+        keys = keys or design
+        pb, pf = panels.at(x, "built"), panels.at(x, "found")
+        same = [sid for sid, xx in xs.items() if panels.at(xx, "found") == pf]
+        tw, tw_words = panel_thickness(st.id, readings, defn.part(web.web_id).t, pf, policy, same)
         ctx = StationContext(
             family=family,
             member=mf,
@@ -95,8 +126,8 @@ def assess_member(
             depth_words=depth_words,
             tw_panel=tw,
             tw_words=tw_words,
-            panel=panel_at(x, span, do),
-            do=do,
+            panel=pb.kind,
+            do=pb.do,
             material=material,
             x=x,
             span=span,
@@ -107,6 +138,12 @@ def assess_member(
             opts=opts,
             year_built=survey.survey.year_built,
             cache=cache,
+            setup=setup,
+            station=st.id,
+            compression=compression_of(effects),
+            panel_built=pb,
+            panel_found=pf,
+            supports=at_station.get(st.id, ()),
         )
         states = [
             rated(ls, rate(ls, family.measure, effects, keys, by_key, mf, place))
@@ -125,7 +162,7 @@ def assess_member(
                 loss_pct,
                 tuple(states),
                 tuple(flags),
-                ctx.panel,
+                pf.kind,
                 D,
                 tw,
                 ctx.design.get("V"),
@@ -149,6 +186,7 @@ def assess_member(
                 ln.pitch,
                 opts.thresholds,
             )
+    mflags += detail_flags(member, details, unattached)
     if cases and mf["g"].source == NOT_RECORDED:
         mflags.append(
             Flag(
@@ -171,7 +209,86 @@ def assess_member(
         summary,
         tuple(envelopes),
         tuple(mf.values()),
+        details,
+        panels,
     )
+
+
+def compression_of(effects) -> str:
+    """The flange in compression at a station: the bottom one where the dead load moment
+    is hogging (negative), else the top one."""
+    if effects is None:
+        return "top"
+    return "bottom" if effects.M_DC + effects.M_DW < 0.0 else "top"
+
+
+def _age(survey: Survey) -> float | None:
+    """Years in service at the survey (its first date, else today), None without the year
+    built."""
+    yb = survey.survey.year_built
+    if yb is None:
+        return None
+    year = _dt.date.today().year
+    for d in survey.survey.dates:
+        try:
+            year = _dt.date.fromisoformat(d).year
+            break
+        except ValueError:
+            continue
+    return float(max(year - yb, 0))
+
+
+def attach_supports(
+    details: MemberDetails, xs: dict[str, float], depth: float
+) -> tuple[dict[str, tuple[SupportData, ...]], list[SupportData]]:
+    """The station nearest each support, within ``depth`` (mm) of it, takes its girder end
+    checks; the supports with no station that near are returned apart."""
+    out: dict[str, list[SupportData]] = {}
+    alone = []
+    for sup in details.supports:
+        near = [(abs(x - sup.x), sid) for sid, x in xs.items() if abs(x - sup.x) <= depth]
+        if near:
+            out.setdefault(min(near)[1], []).append(sup)
+        else:
+            alone.append(sup)
+    return {k: tuple(v) for k, v in out.items()}, alone
+
+
+def detail_flags(member: Member, details: MemberDetails, alone: list[SupportData]) -> list[Flag]:
+    """Flags about what the girder details leave unchecked or assumed."""
+    out = []
+    w = member.place()
+    if not details.supports:
+        out.append(
+            Flag(
+                Level.REVIEW,
+                f"{w} / supports",
+                "engineer to review: no supports recorded; the girder ends (bearing "
+                "stiffeners, web yielding and crippling at the bearings) are not checked",
+            )
+        )
+    for sup in alone:
+        out.append(
+            Flag(
+                Level.REVIEW,
+                f"{w} / support {sup.id!r}",
+                "engineer to review: no station within one web depth of the support; its girder "
+                "end is not checked (measure the web and the stiffener at the bearing)",
+            )
+        )
+    for name, br in (("top", details.top), ("bottom", details.bottom)):
+        if not br.recorded and name == "top":
+            out.append(
+                Flag(
+                    Level.REVIEW,
+                    f"{w} / bracing",
+                    "engineer to review: the bracing of the top flange is not recorded; it is "
+                    "taken as held laterally at the supports only (conservative)",
+                )
+            )
+    for x in details.warnings:
+        out.append(Flag(Level.WATCH, f"{w} / stiffeners", f"keep watching: {x}"))
+    return out
 
 
 def member_summary(
@@ -195,6 +312,8 @@ def member_summary(
         for s in stations:
             eff = effects.get(s.station)
             for ls in s.limit_states:
+                if ls.part_of is not None:
+                    continue
                 group = ls.key.split(":")[0]
                 r = rate(ls, measure, eff, keys, by_key, mf, member.place(s.station))
                 if r is not None and (group not in worst or r.badness < worst[group][0].badness):

@@ -3,9 +3,10 @@
 from __future__ import annotations
 
 import statistics
-from collections.abc import Mapping
+from collections.abc import Mapping, Sequence
 from dataclasses import replace
 
+from core.assess.details import Panel
 from core.assess.effects import LiveCase, StationEffects
 from core.assess.options import AssessOptions
 from core.assess.results import LimitState
@@ -16,19 +17,6 @@ from core.section import StationSection
 from core.survey.model import Member
 
 KIND_OF = {"M": "moment", "V": "force"}
-
-
-def panel_at(x: float, span: float, do: float | None) -> str:
-    """Panel kind at x (mm): unstiffened without stiffeners; an end panel within one
-    stiffener spacing of either end; interior otherwise."""
-    if do is None:
-        return "unstiffened"
-    return "end" if x < do or x > span - do else "interior"
-
-
-def _panel_index(x: float, span: float, do: float) -> int:
-    n = max(int(span // do), 1)
-    return min(int(x // do), n - 1) if x < span else n - 1
 
 
 def web_readings(member: Member, web_id: str) -> dict[str, tuple[float, list[float]]]:
@@ -45,24 +33,26 @@ def panel_thickness(
     station_id: str,
     readings: dict[str, tuple[float, list[float]]],
     t_nominal: float,
-    do: float | None,
-    span: float,
+    panel: Panel | None,
     policy: str,
+    same: Sequence[str] = (),
 ) -> tuple[float, str]:
     """The panel-representative web thickness as-found (mm) and why: the mean (or, with the
     minimum thickness policy, the least) of the whole-web readings of every station in the
-    same panel between stiffeners; for an unstiffened web, of this station only. Readings of
-    loss bands are local and left to the local check. Capped at nominal. ``readings`` is
-    :func:`web_readings` of the member."""
-    x, own = readings[station_id]
-    if do is None:
+    same panel between stiffeners (``panel``, as found); for an unstiffened web, of this
+    station only. Readings of loss bands are local and left to the local check. Capped at
+    nominal. ``readings`` is :func:`web_readings` of the member; ``same`` the stations in
+    the panel."""
+    _, own = readings[station_id]
+    if panel is None or panel.kind == "unstiffened":
         vals, where = own, "this station (unstiffened web)"
     else:
-        k = _panel_index(x, span, do)
-        same = [sid for sid, (xs, _) in readings.items() if _panel_index(xs, span, do) == k]
+        same = list(same) or [station_id]
         vals = [v for sid in same for v in readings[sid][1]]
-        a, b = k * do / 1000.0, min((k + 1) * do, span) / 1000.0
-        where = f"the panel {a:.4g} to {b:.4g} m (station(s) {', '.join(same)})"
+        where = (
+            f"the panel {panel.a / 1000.0:.4g} to {panel.b / 1000.0:.4g} m "
+            f"(station(s) {', '.join(same)})"
+        )
     if not vals:
         return t_nominal, "nominal: no web reading in " + where
     stat = min(vals) if policy == "minimum" else statistics.fmean(vals)
@@ -102,7 +92,11 @@ def rate(
     member: Mapping[str, Factor],
     where: str,
 ):
-    """The worst rating of a limit state over the load cases ``keys`` (None: not rated)."""
+    """The worst rating of a limit state over the load cases ``keys`` (None: not rated); a
+    limit state with effects of its own (``ls.at``: a girder end's support) is rated with
+    those."""
+    if ls.at is not None:
+        effects = ls.at
     if effects is None or ls.effect is None or ls.R_effect is None:
         return None
     best = None
@@ -138,11 +132,15 @@ def rated(ls: LimitState, r) -> LimitState:
 
 
 def checks(ctx: StationContext) -> list[LimitState]:
-    """Every limit state of the family at the station, in the family's order."""
+    """Every limit state of the family at the station, in the family's order; the
+    components of a least (the flexure) marked ``part_of`` it."""
     done: list[LimitState] = []
     for spec in ctx.family.limit_states:
         done += spec.check(ctx, tuple(done))
-    return done
+    least = next((ls for ls in done if ls.least_of), None)
+    if least is None:
+        return done
+    return [replace(ls, part_of=least.key) if ls.key in least.least_of else ls for ls in done]
 
 
 def part_loss_percent(built: StationSection, found: StationSection) -> dict[str, float]:
@@ -168,8 +166,9 @@ def station_flags(
         flags.append(flag_not_applicable(f"{ctx.where} / shear stress VQ/It", reason))
     for ls in states:
         subj = f"{ctx.where} / {ls.name}"
-        if ls.ratio is not None:
+        if ls.ratio is not None and not ls.least_of:
             flags.append(flag_capacity_ratio(subj, ls.ratio, th))
         if ls.rating is not None:
             flags.append(ctx.family.measure.flag(subj, ls.rating, th))
+        flags += ls.flags
     return flags

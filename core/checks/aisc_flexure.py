@@ -8,6 +8,8 @@ Equation numbers as recalled from the 2016 and 2022 editions (from memory):
   (doubly symmetric) or (hc/hp) sqrt(E/Fy) / (0.54 Mp/My - 0.09)² <= lambda_rw (case 16);
   flange outstands of built-up sections: lambda_pf = 0.38 sqrt(E/Fy),
   lambda_rf = 0.95 sqrt(kc E/FL), kc = 4/sqrt(h/tw) within 0.35 to 0.76 (case 11)
+- F4.4 / F5.4 tension flange yielding where Sxt < Sxc: Mn = Rpt Myt (F4-15), Rpt like Rpc
+  with Myt (F4-16a/b), 1.0 where Iyc/Iy <= 0.23 (F4-17); Mn = Fy Sxt (F5-10).
 - F4 (compact or noncompact web): FL = 0.7 Fy if Sxt/Sxc >= 0.7, else Fy Sxt/Sxc >= 0.5 Fy
   (F4-6a/b); Rpc = Mp/Myc (compact web) or the linear transition (F4-9a/b) when
   Iyc/Iy > 0.23, else 1.0 (F4-10); Mp = Fy Zx <= 1.6 Fy Sx; aw = hc tw/(bfc tfc) (F4-12).
@@ -29,7 +31,8 @@ memory): the caller states them. rt for a flange with angles and cover plates is
 flange components plus one third of the web in compression (F4.2; see
 :mod:`core.checks.compression_zone`). The riveted flange's outstands are checked one by one,
 the most slender governing (:class:`core.checks.aashto_flange.FlangeElement` serves both).
-Tension flange yielding (F4.4, F5.4) is left to the yield moment check.
+Flange yielding (F4.1 / F4.4, F5.1 / F5.4) is :func:`flange_yielding`; holes in the
+tension flange (F13.1) are :mod:`core.checks.aisc_holes`.
 """
 
 from __future__ import annotations
@@ -185,6 +188,18 @@ class BuiltUpI:
         return min(mp - (mp - 1.0) * t, mp)
 
     @property
+    def Rpt(self) -> float:
+        """Web plastification factor for tension flange yielding (F4-16a/b; 1.0 where
+        Iyc/Iy <= 0.23, F4-17; from memory)."""
+        if self.Iyc / self.Iy <= 0.23:
+            return 1.0
+        mp = self.Mp / (self.Fy * self.Sxt)
+        if self.lam_w <= self.lam_pw:
+            return mp
+        t = (self.lam_w - self.lam_pw) / (self.lam_rw - self.lam_pw)
+        return min(mp - (mp - 1.0) * t, mp)
+
+    @property
     def Rpg(self) -> float:
         a = self.aw
         return min(1.0 - a / (1200.0 + 300.0 * a) * (self.lam_w - self.lam_rw), 1.0)
@@ -253,6 +268,48 @@ class BuiltUpI:
                 )
             )
         return v
+
+
+def flange_yielding(sec: BuiltUpI, *, phi_b: float = PHI_B) -> CapacityResult:
+    """Nominal flexural strength for compression and tension flange yielding: F4.1 and F4.4
+    (Mn = Rpc Myc, F4-1; Rpt Myt, F4-15) or F5.1 and F5.4 (Rpg Fy Sxc, F5-1; Fy Sxt, F5-10).
+    Tension flange yielding applies only where Sxt < Sxc (F4.4, F5.4).
+
+    Raises:
+        InputError: phi_b out of range.
+    """
+    ph = factor(phi_b, "phi_b", high=1.0, where=sec.where)
+    vals = sec.web_values()
+    Fy = sec.Fy
+    if sec.slender_web:
+        Mc, eq_c = sec.Rpg * Fy * sec.Sxc, "F5-1"
+        Mt, eq_t = Fy * sec.Sxt, "F5-10"
+        clause, notes = "F5.1 and F5.4", ["slender web: F5"]
+    else:
+        Mc, eq_c = sec.Rpc * Fy * sec.Sxc, "F4-1"
+        Mt, eq_t = sec.Rpt * Fy * sec.Sxt, "F4-15"
+        vals.append(
+            CheckValue(
+                "Rpt",
+                sec.Rpt,
+                "dimensionless",
+                "web plastification factor, tension",
+                _ref("F4-16, F4-17"),
+            )
+        )
+        clause, notes = "F4.1 and F4.4", ["compact or noncompact web: F4"]
+    tfy = sec.Sxt < sec.Sxc
+    vals.append(CheckValue("Mn,c", Mc, "moment", "compression flange yielding", _ref(eq_c)))
+    if tfy:
+        vals.append(CheckValue("Mn,t", Mt, "moment", "tension flange yielding", _ref(eq_t)))
+        notes.append(
+            "tension flange yielding governs" if Mt < Mc else "compression flange yielding governs"
+        )
+    else:
+        notes.append("Sxt >= Sxc: tension flange yielding does not apply (F4.4, F5.4)")
+    Mn = min(Mc, Mt) if tfy else Mc
+    eq = eq_t if tfy and Mt < Mc else eq_c
+    return AISC_360.result("flange yielding", f"{clause}, Eq. {eq}", Mn, ph, "moment", vals, notes)
 
 
 def lateral_torsional_buckling(

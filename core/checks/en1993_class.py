@@ -140,17 +140,15 @@ def rho_outstand(lam_p: float) -> float:
 
 
 @dataclass(frozen=True)
-class EffectiveWeb:
-    """The effective section of a girder with a class 4 web (mm).
+class WebZone:
+    """The compressed web's effective widths and its ineffective zone (heights, mm).
 
     Attributes:
-        props: the effective section's properties (the engine's). psi: stress ratio.
-        k_sigma, lam_p, rho: of the web. bc: compressed width. beff, be1, be2: effective
-        widths. hole: (lo, hi) of the ineffective zone, or ``None`` (web fully effective).
-        Weff_c, Weff_t: moduli to the compression and tension fibres. values: the working.
+        psi, k_sigma, lam_p, rho: of the web. bc: compressed width. beff, be1, be2:
+        effective widths (be1 at the compressed edge). hole: (lo, hi) of the ineffective
+        zone, or ``None`` (fully effective).
     """
 
-    props: SectionProperties
     psi: float
     k_sigma: float
     lam_p: float
@@ -160,9 +158,94 @@ class EffectiveWeb:
     be1: float
     be2: float
     hole: tuple[float, float] | None
+
+    @property
+    def height(self) -> float:
+        """Height of the ineffective zone, mm (0 when fully effective)."""
+        return 0.0 if self.hole is None else self.hole[1] - self.hole[0]
+
+
+def web_zone(
+    *,
+    y_edges: tuple[float, float],
+    y_na: float,
+    tw: float,
+    eps: float,
+    compression: str = "top",
+    where: str = "",
+) -> WebZone:
+    """Effective widths of a web in bending between the heights ``y_edges`` (lower, upper),
+    with the elastic neutral axis at ``y_na`` and ``compression`` at the top or the bottom
+    edge (EN 1993-1-5 4.4(2), Tables 4.1, psi not below -3).
+
+    Raises:
+        InputError: the edges not on either side of the neutral axis, or tw not positive.
+    """
+    choice(compression, ("top", "bottom"), "compression", where=where)
+    lo_e, hi_e = y_edges
+    if not lo_e < y_na < hi_e:
+        raise InputError(
+            f"the neutral axis {y_na:g} mm is not within the web's free depth {lo_e:g} to "
+            f"{hi_e:g} mm",
+            where=where,
+        )
+    tw = length(tw, "tw", where=where)
+    comp_edge, tens_edge = (hi_e, lo_e) if compression == "top" else (lo_e, hi_e)
+    b = hi_e - lo_e
+    psi = max((tens_edge - y_na) / (comp_edge - y_na), -3.0)
+    k = k_sigma_internal(psi)
+    lam = plate_slenderness(b, tw, eps, k)
+    rho = rho_internal(lam, psi)
+    if psi < 0.0:
+        bc = b / (1.0 - psi)
+        beff = rho * bc
+        be1, be2 = 0.4 * beff, 0.6 * beff
+    else:
+        bc = b
+        beff = rho * b
+        be1 = 2.0 * beff / (5.0 - psi)
+        be2 = beff - be1
+    hole = None
+    if rho < 1.0:
+        s = 1.0 if compression == "top" else -1.0
+        a = comp_edge - s * be1
+        z = comp_edge - s * (bc - be2)
+        hole = (min(a, z), max(a, z))
+    return WebZone(psi, k, lam, rho, bc, beff, be1, be2, hole)
+
+
+@dataclass(frozen=True)
+class EffectiveWeb:
+    """The effective section of a girder with a class 4 web (mm).
+
+    Attributes:
+        props: the effective section's properties (the engine's). zone: the web's
+        effective widths and ineffective zone (:class:`WebZone`; its psi, k_sigma, lam_p,
+        rho and hole are also read here). Weff_c, Weff_t: moduli to
+        the compression and tension fibres. values: the working.
+    """
+
+    props: SectionProperties
+    zone: WebZone
     Weff_c: float
     Weff_t: float
     values: tuple[CheckValue, ...]
+
+    @property
+    def psi(self) -> float:
+        return self.zone.psi
+
+    @property
+    def lam_p(self) -> float:
+        return self.zone.lam_p
+
+    @property
+    def rho(self) -> float:
+        return self.zone.rho
+
+    @property
+    def hole(self) -> tuple[float, float] | None:
+        return self.zone.hole
 
 
 def effective_web(
@@ -203,34 +286,12 @@ def effective_web(
     loss = loss if loss is not None else StationLoss(where=where)
     gross = analyse(defn, loss).gross.props
     yc = gross.yc
-    if not lo_e < yc < hi_e:
-        raise InputError(
-            f"the neutral axis {yc:g} mm is not within the web's free depth {lo_e:g} to {hi_e:g} mm",
-            where=where,
-        )
-    comp_edge, tens_edge = (hi_e, lo_e) if compression == "top" else (lo_e, hi_e)
-    b = hi_e - lo_e
-    psi = max((tens_edge - yc) / (comp_edge - yc), -3.0)
-    eps = epsilon(fy)
-    k = k_sigma_internal(psi)
-    lam = plate_slenderness(b, tw, eps, k)
-    rho = rho_internal(lam, psi)
-    if psi < 0.0:
-        bc = b / (1.0 - psi)
-        beff = rho * bc
-        be1, be2 = 0.4 * beff, 0.6 * beff
-    else:
-        bc = b
-        beff = rho * b
-        be1 = 2.0 * beff / (5.0 - psi)
-        be2 = beff - be1
-    s = 1.0 if compression == "top" else -1.0
-    hole = None
+    z = web_zone(
+        y_edges=(lo_e, hi_e), y_na=yc, tw=tw, eps=epsilon(fy), compression=compression, where=where
+    )
+    b, hole = hi_e - lo_e, z.hole
     eff_loss = loss
-    if rho < 1.0:
-        a = comp_edge - s * be1
-        z = comp_edge - s * (bc - be2)
-        hole = (min(a, z), max(a, z))
+    if hole is not None:
         eff_loss = StationLoss(
             loss.thickness,
             (*loss.bands, LossBand(web, hole[0], hole[1], 0.0)),
@@ -244,18 +305,18 @@ def effective_web(
     ref = EN_1993_1_5.ref
     vals = (
         CheckValue("b", b, "length", "web free depth", "engineer's input"),
-        CheckValue("psi", psi, "dimensionless", "stress ratio of the web edges", ref("4.4(3)")),
-        CheckValue("k_sigma", k, "dimensionless", "buckling factor", ref("Table 4.1")),
+        CheckValue("psi", z.psi, "dimensionless", "stress ratio of the web edges", ref("4.4(3)")),
+        CheckValue("k_sigma", z.k_sigma, "dimensionless", "buckling factor", ref("Table 4.1")),
         CheckValue(
-            "lambda_p", lam, "dimensionless", "(b/t)/(28.4 eps sqrt(k_sigma))", ref("4.4(2)")
+            "lambda_p", z.lam_p, "dimensionless", "(b/t)/(28.4 eps sqrt(k_sigma))", ref("4.4(2)")
         ),
-        CheckValue("rho", rho, "dimensionless", "reduction factor", ref("4.4(2), Eq. 4.2")),
-        CheckValue("beff", beff, "length", "effective compressed width", ref("Table 4.1")),
+        CheckValue("rho", z.rho, "dimensionless", "reduction factor", ref("4.4(2), Eq. 4.2")),
+        CheckValue("beff", z.beff, "length", "effective compressed width", ref("Table 4.1")),
         CheckValue(
-            "be1", be1, "length", "effective width at the compressed edge", ref("Table 4.1")
+            "be1", z.be1, "length", "effective width at the compressed edge", ref("Table 4.1")
         ),
         CheckValue(
-            "be2", be2, "length", "effective width towards the neutral axis", ref("Table 4.1")
+            "be2", z.be2, "length", "effective width towards the neutral axis", ref("Table 4.1")
         ),
         CheckValue(
             "Weff,c",
@@ -268,4 +329,4 @@ def effective_web(
             "Weff,t", Wt, "section_modulus", "effective modulus, tension fibre", "section engine"
         ),
     )
-    return EffectiveWeb(props, psi, k, lam, rho, bc, beff, be1, be2, hole, Wc, Wt, vals)
+    return EffectiveWeb(props, z, Wc, Wt, vals)

@@ -25,7 +25,7 @@ import math
 from collections.abc import Sequence
 
 from core.checks._inputs import Number, internal, modulus, stress
-from core.checks.elastic_support import critical_load
+from core.checks.elastic_support import SpringColumn, critical_load
 from core.checks.en1993_buckling import E_STEEL, GAMMA_M1, GAMMA_SOURCE, alpha_of, chi
 from core.checks.en1993_ltb import CURVE_RIVETED
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
@@ -43,6 +43,7 @@ def compression_chord(
     E: Number = E_STEEL,
     curve: str = CURVE_RIVETED,
     gamma_M1: float = GAMMA_M1,
+    column: SpringColumn | None = None,
     where: str = "",
 ) -> CapacityResult:
     """Buckling resistance moment of a U-frame girder from its compression chord (6.3.4.2).
@@ -54,6 +55,8 @@ def compression_chord(
         span: length between the bearings (chord held laterally there), mm.
         frames: ``(position, Cd)`` of each intermediate U-frame: mm from one bearing, N/mm.
         E: modulus, MPa. curve: LTB curve (default d). gamma_M1: default 1.10.
+        column: the chord's critical force on these frames when already found (the same
+            chord and frames: a member's stations share it); None: found here.
         where: place for messages.
 
     Raises:
@@ -66,7 +69,7 @@ def compression_chord(
     L = member_length(span, "span", where=where)
     E_ = modulus(E, where=where)
     gM1 = factor(gamma_M1, "gamma_M1", low=0.5, where=where)
-    col = critical_load(EI=E_ * I, L=L, springs=frames, where=where)
+    col = column or critical_load(EI=E_ * I, L=L, springs=frames, where=where)
     lam = math.sqrt(A * fy / col.Ncr)
     alpha = alpha_of(curve, where=where)
     x, phi = chi(lam, alpha)

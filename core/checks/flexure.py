@@ -3,14 +3,13 @@
 AASHTO LRFD Bridge Design Specifications, 9th edition (2020), from memory:
 
 - 6.10.8.1.1 / 6.10.8.3: the flange stress limit of a noncomposite I-section is
-  Fn = Rb Rh Fyf for the compression flange where local and lateral-torsional buckling do not
-  govern (6.10.8.2.2 and 6.10.8.2.3 are part 2 of the family and not checked here: this is an
-  upper bound, said so on the assumptions page), and Fn = Rh Fyt for the tension flange.
-  As moments: Mn = Fn S of each flange's fibre, on the gross section (first yield).
-- Rh = 1.0 for a homogeneous section (6.10.1.10.1).
-- Rb, the web load-shedding factor (6.10.1.10.2): Rb = 1 where 2Dc/tw <= lambda_rw =
-  5.7 sqrt(E/Fyc), else Rb = 1 - a_wc / (1200 + 300 a_wc) (2Dc/tw - lambda_rw) <= 1.0 with
-  a_wc = 2 Dc tw / (bfc tfc).
+  Fn = Rb Rh Fyf for the compression flange (its yield plateau; local and lateral-torsional
+  buckling, 6.10.8.2.2 and 6.10.8.2.3, are :mod:`core.checks.aashto_flange` and
+  :mod:`core.checks.aashto_ltb`, and the family takes the least), and Fn = Rh Fyt for the
+  tension flange. As moments: Mn = Fn S of each flange's fibre, on the gross section (first
+  yield).
+- Rh = 1.0 for a homogeneous section (6.10.1.10.1); Rb, the web load-shedding factor
+  (6.10.1.10.2), from :func:`core.checks.aashto_flange.web_load_shedding`.
 - 6.10.1.8 (net section fracture of a tension flange at holes): ft <= 0.84 (An/Ag) Fu <= Fyt,
   ft the stress on the gross area of the tension flange; it does not govern once
   An/Ag >= Fyt / (0.84 Fu).
@@ -19,9 +18,7 @@ AASHTO LRFD Bridge Design Specifications, 9th edition (2020), from memory:
 
 from __future__ import annotations
 
-import math
-
-from core.checks._inputs import Number, internal, length, modulus, stress
+from core.checks._inputs import Number, internal, stress
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
 from core.errors import InputError
 
@@ -36,38 +33,6 @@ def _src(clause: str) -> str:
 
 def _modulus(x: Number, name: str, where: str) -> float:
     return internal(x, "section_modulus", name, where=where, low=0.0, high=1e12)
-
-
-def load_shedding_Rb(
-    *, Dc: Number, tw: Number, bfc_tfc: Number, E: Number, Fyc: Number, where: str = ""
-) -> tuple[float, list[CheckValue]]:
-    """Web load-shedding factor Rb (6.10.1.10.2) and its working.
-
-    Args:
-        Dc: depth of the web in compression (elastic), mm; tw: web thickness, mm;
-        bfc_tfc: area of the compression flange, mm²; E, Fyc: MPa.
-
-    Raises:
-        InputError: a value out of range.
-    """
-    Dc = internal(Dc, "length", "Dc", where=where, low=0.0, high=20_000.0, low_inclusive=True)
-    tw = length(tw, "tw", where=where)
-    Af = internal(bfc_tfc, "area", "bfc tfc", where=where, low=0.0, high=1e8)
-    E = modulus(E, where=where)
-    Fyc = stress(Fyc, "Fyc", where=where)
-    lam_rw = 5.7 * math.sqrt(E / Fyc)
-    slender = 2.0 * Dc / tw
-    a_wc = 2.0 * Dc * tw / Af
-    Rb = 1.0 if slender <= lam_rw else min(1.0 - a_wc / (1200 + 300 * a_wc) * (slender - lam_rw), 1)
-    src = _src("6.10.1.10.2")
-    vals = [
-        CheckValue("Dc", Dc, "length", "depth of the web in compression (elastic)", src),
-        CheckValue("2Dc/tw", slender, "dimensionless", "web slenderness in compression", src),
-        CheckValue("lambda_rw", lam_rw, "dimensionless", "5.7 sqrt(E/Fyc)", src),
-        CheckValue("a_wc", a_wc, "dimensionless", "2 Dc tw / (bfc tfc)", src),
-        CheckValue("Rb", Rb, "dimensionless", "web load-shedding factor", src),
-    ]
-    return max(Rb, 0.0), vals
 
 
 def flange_yield(
@@ -88,7 +53,7 @@ def flange_yield(
     Args:
         Fyc, Fyt: yield strengths of the compression and tension flanges, MPa.
         S_c, S_t: elastic section moduli to the compression and tension fibres, mm³.
-        Rb, Rh: factors of 6.10.1.10 (see :func:`load_shedding_Rb`).
+        Rb, Rh: factors of 6.10.1.10 (Rb: :func:`core.checks.aashto_flange.web_load_shedding`).
         phi_f: resistance factor for flexure (the family's, 1.00).
         extra: values of the working computed elsewhere (Rb's), listed first.
 
@@ -123,11 +88,7 @@ def flange_yield(
         phi=phi,
         kind="moment",
         values=vals,
-        notes=(
-            f"the {which} flange governs",
-            "lateral-torsional and flange local buckling (6.10.8.2) not checked here: "
-            "an upper bound",
-        ),
+        notes=(f"the {which} flange governs",),
     )
 
 

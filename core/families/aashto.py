@@ -31,19 +31,19 @@ from core.assess.options import AssessOptions
 from core.assess.results import LimitState
 from core.checks import aashto_rivets, aashto_shear
 from core.checks.flags import Flag, Level
-from core.checks.flexure import flange_yield, load_shedding_Rb, tension_flange_net_section
+from core.checks.flexure import tension_flange_net_section
 from core.checks.results import ENGINEER
+from core.families import aashto_girder as girder
 from core.families.base import Choice, Document, Factor, Family, LimitStateSpec, override
 from core.families.common import (
     RulesBase,
     line_rivet,
     local_shear,
-    moment_state,
     panel_shear,
     rivet_groups,
     tension_flange,
 )
-from core.families.context import StationContext, flange_area
+from core.families.context import StationContext
 from core.families.liveload import distribution, vehicle_model
 from core.families.measures import RatingFactor
 from core.loads.models import HL93
@@ -118,6 +118,12 @@ TOKENS = (
     "gLL",
     "design tandem",
     "design truck",
+    "Rb",
+    "Fnc",
+    "Fcrw",
+    "(Delta f)",
+    "Category D",
+    "fatigue truck",
 )
 
 RANGES = {
@@ -132,6 +138,7 @@ RANGES = {
     "Fnv": (0.0, 1000.0),
     "phi_c": (0.0, 1.0),
     "phi_s": (0.0, 1.0),
+    **girder.RANGES,
 }
 
 
@@ -147,6 +154,10 @@ def default_factors(level: str, year_built: int | None) -> dict[str, Factor]:
     """The family's factors for a rating level, with their sources."""
     gLL, words, table = LIVE_LOAD_FACTOR[level]
     Fnv, fnv_src = aashto_rivets.rivet_Fnv(year_built)
+    return {**_base_factors(gLL, words, table, Fnv, fnv_src), **girder.girder_factors()}
+
+
+def _base_factors(gLL, words, table, Fnv, fnv_src) -> dict[str, Factor]:
     return {
         "phi_v": Factor("phi_v", 1.00, "resistance factor, shear", _lrfd("6.5.4.2")),
         "phi_f": Factor("phi_f", 1.00, "resistance factor, flexure", _lrfd("6.5.4.2")),
@@ -178,13 +189,14 @@ def shear_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     def check(st, tw, label):
         bfc, tfc = flange_proportions(ctx.defn, ctx.web.top_parts, st.gross.part_area)
         bft, tft = flange_proportions(ctx.defn, ctx.web.bottom_parts, st.gross.part_area)
+        panel, do = ctx.panel_of(label)
         return aashto_shear.web_shear(
             Fyw=m.Fy,
             E=m.E,
             D=ctx.D,
             tw=tw,
-            panel=ctx.panel,
-            do=ctx.do,
+            panel=panel,
+            do=do,
             bfc=bfc or None,
             tfc=tfc or None,
             bft=bft or None,
@@ -210,34 +222,6 @@ def local_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     )
 
 
-def flexure_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
-    """Flange yield Fn = Rb Rh Fyf on the gross section (6.10.8.1.1, 6.10.8.3, 6.10.1.10.2)."""
-    m = ctx.material
-    res = {}
-    for label, st, tw in (("built", ctx.built, ctx.tw_nominal), ("found", ctx.found, ctx.tw_panel)):
-        p = st.gross.props
-        Dc = min(max(ctx.web.y_web[1] - p.yc, 0.0), ctx.web.D_web)
-        w = f"{ctx.where} / flexure ({label})"
-        Rb, vals = load_shedding_Rb(
-            Dc=Dc, tw=tw, bfc_tfc=flange_area(st, ctx.web.top_parts), E=m.E, Fyc=m.Fy, where=w
-        )
-        res[label] = flange_yield(
-            Fyc=m.Fy,
-            Fyt=m.Fy,
-            S_c=p.S_top,
-            S_t=p.S_bot,
-            Rb=Rb,
-            phi_f=ctx.f("phi_f"),
-            extra=tuple(vals),
-            where=w,
-        )
-    note = (
-        "first yield of the gross section, Fn = Rb Rh Fyf (6.10.8); holes only in the tension "
-        "flange check; compression flange buckling (6.10.8.2) not checked: an upper bound"
-    )
-    return [moment_state("flexure", "flexure, flange yield", res["built"], res["found"], note)]
-
-
 def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     """Net section of the bottom (tension) flange at its holes (6.10.1.8) as a moment."""
 
@@ -245,12 +229,13 @@ def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitSt
         r = tension_flange_net_section(
             An=An, Ag=Ag, Fu=ctx.material.Fu, Fyt=ctx.material.Fy, where=w
         )
-        return r, r.Rr * st.gross.props.S_bot
+        p = st.gross.props
+        return r, r.Rr * (p.S_bot if ctx.compression == "top" else p.S_top)
 
     return tension_flange(
         ctx,
         check,
-        "gross-area stress limit at the holes times the gross modulus to the bottom fibre",
+        "gross-area stress limit at the holes times the gross modulus to the tension fibre",
     )
 
 
@@ -275,9 +260,19 @@ def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 LIMIT_STATES = (
     LimitStateSpec("web_shear", "web shear, panel (6.10.9)", shear_states),
     LimitStateSpec("web_local", "web shear, local (6.10.9.2)", local_states),
-    LimitStateSpec("flexure", "flexure, flange yield (6.10.8)", flexure_states),
+    LimitStateSpec(
+        "flange_yield", "flange yield (6.10.8.1.1, 6.10.8.3)", girder.flange_yield_states
+    ),
+    LimitStateSpec("ltb", "lateral-torsional buckling (6.10.8.2.3)", girder.ltb_states),
+    LimitStateSpec("flb", "flange local buckling (6.10.8.2.2)", girder.flb_states),
+    LimitStateSpec("web_bend", "web bend-buckling (6.10.1.9.1), service", girder.web_bend_states),
     LimitStateSpec("tension_flange", "tension flange at holes (6.10.1.8)", tension_flange_states),
+    LimitStateSpec("flexure", "flexure, the least of the above (6.10.8)", girder.flexure_states),
+    LimitStateSpec("girder_end", "girder ends (6.10.11.2, D6.5)", girder.girder_end_states),
     LimitStateSpec("rivets", "rivet lines (MBE 6A.6.12.5.1, LRFD 6.13.2.9)", rivet_states),
+    LimitStateSpec(
+        "fatigue", "fatigue, riveted details (MBE 7.2, LRFD 6.6.1.2)", girder.fatigue_states
+    ),
 )
 
 
@@ -288,6 +283,12 @@ class Rules(RulesBase):
     factors: dict
     level: str
     key = "aashto"
+
+    def stiffener_check(self, defn, web, D: float, material):
+        return girder.stiffener_check(defn, web, D, material)
+
+    def girder_notes(self) -> list[Choice]:
+        return girder.girder_notes()
 
     def member_factors(self, member: Member, opts: AssessOptions) -> dict[str, Factor]:
         cond = opts.condition or member.condition

@@ -22,20 +22,20 @@ from core.assess.inputs import flange_proportions
 from core.assess.options import AssessOptions
 from core.assess.results import LimitState
 from core.checks import aisc_rivets, aisc_shear
-from core.checks.aisc_flange_yield import flange_yielding, tension_flange_holes
+from core.checks.aisc_holes import tension_flange_holes
 from core.checks.flags import Flag, Level
 from core.checks.results import ENGINEER
+from core.families import aisc_girder as girder
 from core.families.base import Choice, Document, Factor, Family, LimitStateSpec, override
 from core.families.common import (
     RulesBase,
     line_rivet,
     local_shear,
-    moment_state,
     panel_shear,
     rivet_groups,
     tension_flange,
 )
-from core.families.context import StationContext, flange_area
+from core.families.context import StationContext
 from core.families.liveload import distribution, vehicle_model
 from core.families.measures import DemandCapacity
 from core.survey.model import Member, Survey
@@ -70,6 +70,12 @@ TOKENS = (
     "F13.1",
     "Appendix 5",
     "D/C",
+    "Rpc",
+    "Rpt",
+    "F4.",
+    "F5.",
+    "J10.",
+    "J7",
 )
 
 RANGES = {
@@ -79,6 +85,7 @@ RANGES = {
     "Fnv": (0.0, 1000.0),
     "LF_D": (0.0, 3.0),
     "LF_L": (0.0, 3.0),
+    **girder.RANGES,
 }
 
 
@@ -87,6 +94,10 @@ def _src(clause: str) -> str:
 
 
 def default_factors() -> dict[str, Factor]:
+    return {**_base_factors(), **girder.girder_factors()}
+
+
+def _base_factors() -> dict[str, Factor]:
     return {
         "phi_v": Factor("phi_v", 0.90, "resistance factor, shear", _src("G1")),
         "phi_b": Factor("phi_b", 0.90, "resistance factor, flexure", _src("F1")),
@@ -113,14 +124,15 @@ def shear_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     def check(st, tw, label):
         bfc, tfc = flange_proportions(ctx.defn, ctx.web.top_parts, st.gross.part_area)
         bft, tft = flange_proportions(ctx.defn, ctx.web.bottom_parts, st.gross.part_area)
+        panel, do = ctx.panel_of(label)
         return aisc_shear.web_shear(
             Fy=m.Fy,
             E=m.E,
             h=ctx.D,
             tw=tw,
             d=ctx.web.d_overall,
-            panel=ctx.panel,
-            a=ctx.do,
+            panel=panel,
+            a=do,
             bfc=bfc or None,
             tfc=tfc or None,
             bft=bft or None,
@@ -146,32 +158,6 @@ def local_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     )
 
 
-def flexure_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
-    """Compression and tension flange yielding (F4 / F5) on the gross section."""
-    m = ctx.material
-    res = {}
-    top = ctx.web.y_lines[1] if ctx.web.y_lines else ctx.web.y_toes[1]
-    for label, st, tw in (("built", ctx.built, ctx.tw_nominal), ("found", ctx.found, ctx.tw_panel)):
-        p = st.gross.props
-        res[label] = flange_yielding(
-            Fy=m.Fy,
-            E=m.E,
-            S_xc=p.S_top,
-            S_xt=p.S_bot,
-            hc=max(2.0 * (top - p.yc), 0.0),
-            tw=tw,
-            Afc=flange_area(st, ctx.web.top_parts),
-            phi_b=ctx.f("phi_b"),
-            where=f"{ctx.where} / flexure ({label})",
-        )
-    note = (
-        "flange yielding on the gross section (F4 / F5), hc to the top rivet line; holes only "
-        "in the tension flange check; lateral-torsional and local buckling not checked: an "
-        "upper bound"
-    )
-    return [moment_state("flexure", "flexure, flange yielding", res["built"], res["found"], note)]
-
-
 def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     """Holes in the tension (bottom) flange, F13.1."""
 
@@ -181,13 +167,13 @@ def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitSt
             Afg=Ag,
             Fy=ctx.material.Fy,
             Fu=ctx.material.Fu,
-            S_xt=st.gross.props.S_bot,
+            S_xt=st.gross.props.S_bot if ctx.compression == "top" else st.gross.props.S_top,
             phi_b=ctx.f("phi_b"),
             where=w,
         )
         return r, r.Rr
 
-    return tension_flange(ctx, check, "tensile rupture of the bottom flange at its holes (F13.1)")
+    return tension_flange(ctx, check, "tensile rupture of the tension flange at its holes (F13.1)")
 
 
 def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -210,8 +196,12 @@ def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 LIMIT_STATES = (
     LimitStateSpec("web_shear", "web shear, panel (G2)", shear_states),
     LimitStateSpec("web_local", "web shear, local (G2.1)", local_states),
-    LimitStateSpec("flexure", "flexure, flange yielding (F4 / F5)", flexure_states),
+    LimitStateSpec("flange_yield", "flange yielding (F4 / F5)", girder.flange_yield_states),
+    LimitStateSpec("ltb", "lateral-torsional buckling (F4.2 / F5.2)", girder.ltb_states),
+    LimitStateSpec("flb", "flange local buckling (F4.3 / F5.3)", girder.flb_states),
     LimitStateSpec("tension_flange", "tension flange at holes (F13.1)", tension_flange_states),
+    LimitStateSpec("flexure", "flexure, the least of the above (F4 / F5)", girder.flexure_states),
+    LimitStateSpec("girder_end", "girder ends (J7, J10)", girder.girder_end_states),
     LimitStateSpec("rivets", "rivet lines (J3, Appendix 5)", rivet_states),
 )
 
@@ -223,6 +213,12 @@ class Rules(RulesBase):
 
     def member_factors(self, member: Member, opts: AssessOptions) -> dict[str, Factor]:
         return {"g": distribution(member, opts)}
+
+    def stiffener_check(self, defn, web, D: float, material):
+        return girder.stiffener_check(defn, web, D, material)
+
+    def girder_notes(self) -> list[Choice]:
+        return girder.girder_notes()
 
     def live_cases(self, member: Member, survey: Survey, opts: AssessOptions) -> list[LiveCase]:
         model = opts.live_load or "vehicles"

@@ -47,11 +47,11 @@ def moment_state(
 
 
 def tension_flange(ctx: StationContext, check: HolesCheck, note: str) -> list[LimitState]:
-    """The bottom (tension) flange at its holes, as-built and as-found: ``check(section, An,
-    Ag, label)`` gives the family's result and its factored moment. None where the flange
-    has no holes."""
+    """The tension flange (the bottom one in sagging) at its holes, as-built and as-found:
+    ``check(section, An, Ag, label)`` gives the family's result and its factored moment.
+    None where the flange has no holes."""
     out = {}
-    ids = ctx.web.bottom_parts
+    ids = ctx.tension_parts
     for label, st in (("built", ctx.built), ("found", ctx.found)):
         Ag = flange_area(st, ids)
         An = float(sum(st.net.part_area[i] for i in ids))
@@ -80,6 +80,25 @@ class RulesBase:
     def flags(self, survey) -> list:
         return []
 
+    def girder_notes(self) -> list:
+        """The family's own bases of its girder limit states (``Choice`` rows)."""
+        return []
+
+    def stiffener_check(self, defn, web, D: float, material):
+        """The family's requirement of an intermediate stiffener,
+        ``check(stiffener, loss, tw, do, state) -> PanelStiffening`` (None: none)."""
+        return None
+
+
+def _panel_words(ctx: StationContext) -> str:
+    pb, pf = ctx.panel_built, ctx.panel_found
+    if pf is None or pf.kind == "unstiffened":
+        return ""
+    out = f"; panel {pf.a / 1000:.4g} to {pf.b / 1000:.4g} m, {pf.words}"
+    if pb is not None and (pb.a, pb.b, pb.kind) != (pf.a, pf.b, pf.kind):
+        out += f" (as built: {pb.a / 1000:.4g} to {pb.b / 1000:.4g} m, {pb.words})"
+    return out
+
 
 def panel_shear(ctx: StationContext, check: ShearCheck) -> LimitState:
     """Web panel shear as-built (nominal web) and as-found (panel-representative thickness).
@@ -96,7 +115,7 @@ def panel_shear(ctx: StationContext, check: ShearCheck) -> LimitState:
         b.Rr,
         f.Rr,
         note=f"D = {ctx.D:.4g} mm ({ctx.depth_words}); as-found tw {ctx.tw_panel:.3g} mm "
-        f"({ctx.tw_words})",
+        f"({ctx.tw_words})" + _panel_words(ctx),
         effect="V",
         R_effect=f.Rr,
     )

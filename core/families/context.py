@@ -9,20 +9,49 @@ values, and the rivet lines.
 
 from __future__ import annotations
 
-from collections.abc import Mapping
+from collections.abc import Callable, Mapping
 from dataclasses import dataclass, field, replace
 
 import numpy as np
 
+from core.assess.details import MemberDetails, Panel, SupportData
 from core.assess.effects import StationEffects
 from core.assess.inputs import WebGeometry
 from core.assess.options import AssessOptions
+from core.assess.panels import PanelLayout
 from core.assess.results import LimitState, LineSummary
 from core.checks.material import Material
 from core.checks.results import CapacityResult
 from core.definition import SectionDefinition, StationLoss
 from core.families.base import Factor, Family
 from core.section import StationSection
+
+
+@dataclass(frozen=True)
+class MemberSetup:
+    """What the limit states of every station of a member share, built once per member.
+
+    Attributes:
+        details: the girder details (stiffeners, supports, bracing) in mm.
+        panels: the web panels as-built and as-found.
+        moment: the family's factored design moment at a position x (N mm), None without
+            loads: the moment diagram for the moment gradient factors.
+        support_effects: the effects at each support (by id), None where the loads are the
+            stations' own.
+        found: every station's as-found section, by station id (the weakest one serves
+            checks made once per member, as the U-frame chord).
+        age: years in service at the survey (None: year built not given).
+        multiple_presence: the factor inside the lever rule's distribution (1.0 without):
+            fatigue takes one vehicle without it.
+    """
+
+    details: MemberDetails
+    panels: PanelLayout
+    moment: Callable[[float], float | None]
+    support_effects: Mapping[str, StationEffects | None] = field(default_factory=dict)
+    found: Mapping[str, StationSection] = field(default_factory=dict)
+    age: float | None = None
+    multiple_presence: float = 1.0
 
 
 @dataclass(frozen=True)
@@ -46,6 +75,13 @@ class StationContext:
         year_built: of the structure, or None.
         cache: results that are the same at every station of the member (the as-built rivet
             of each line), shared by the member's stations.
+        setup: what the member's stations share (girder details, panels, moment diagram).
+        station: the station's id. compression: the flange in compression here, ``"top"``
+            (sagging) or ``"bottom"`` (hogging), from the sign of the dead load moment.
+        panel_found: the as-found panel (its stiffeners with their measured loss);
+            ``panel`` and ``do`` are the as-built one's kind and spacing.
+        panel_built: the as-built panel. supports: the supports whose girder end checks
+            are made at this station (the station nearest each, within the web depth).
     """
 
     family: Family
@@ -72,10 +108,31 @@ class StationContext:
     opts: AssessOptions = field(default_factory=AssessOptions)
     year_built: int | None = None
     cache: dict = field(default_factory=dict, compare=False, repr=False)
+    setup: MemberSetup | None = None
+    station: str = ""
+    compression: str = "top"
+    panel_built: Panel | None = None
+    panel_found: Panel | None = None
+    supports: tuple[SupportData, ...] = ()
 
     def f(self, symbol: str) -> float:
         """A factor of the family."""
         return self.family.factor(symbol)
+
+    def panel_of(self, label: str) -> tuple[str, float | None]:
+        """(kind, spacing) of the panel as-built (``"built"``) or as-found."""
+        p = self.panel_built if label == "built" else self.panel_found
+        if p is None:
+            return self.panel, self.do
+        return p.kind, p.do
+
+    @property
+    def compression_parts(self) -> tuple[str, ...]:
+        return self.web.top_parts if self.compression == "top" else self.web.bottom_parts
+
+    @property
+    def tension_parts(self) -> tuple[str, ...]:
+        return self.web.bottom_parts if self.compression == "top" else self.web.top_parts
 
     @property
     def tw_nominal(self) -> float:

@@ -25,10 +25,12 @@ from core.assess.effects import LiveCase
 from core.assess.options import AssessOptions
 from core.assess.results import LimitState
 from core.checks import en1993_rivets, en1993_shear
-from core.checks.en1993_bending import epsilon, tension_flange_holes
+from core.checks.en1993_bending import tension_flange_holes
+from core.checks.en1993_buckling import epsilon
 from core.checks.en1993_interaction import SRC_71, bending_shear, flange_contribution
 from core.checks.flags import Flag, Level
 from core.checks.results import ENGINEER, CapacityResult, CheckValue
+from core.families import en1993_girder as girder
 from core.families.base import Choice, Document, Factor, Family, LimitStateSpec, override
 from core.families.common import (
     RulesBase,
@@ -97,6 +99,11 @@ TOKENS = (
     "Mc,Rd",
     "utilisation",
     "fyw",
+    "chi_LT",
+    "Mb,Rd",
+    "Mcr",
+    "Delta sigma",
+    "lambda_fat",
 )
 
 RANGES = {
@@ -109,6 +116,7 @@ RANGES = {
     "f_ur": (100.0, 1000.0),
     "alpha_Q": (0.0, 2.0),
     "alpha_q": (0.0, 2.0),
+    **girder.RANGES,
 }
 
 
@@ -164,7 +172,8 @@ def shear_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 
     def check(st, tw, label):
         Vbf, vals, note = 0.0, (), ""
-        if ctx.do is not None and M_Ed is not None:
+        panel, do = ctx.panel_of(label)
+        if do is not None and M_Ed is not None:
             Mf, _ = flanges_moment(ctx, st)
             cands = []
             for ids in (ctx.web.top_parts, ctx.web.bottom_parts):
@@ -180,7 +189,7 @@ def shear_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
                     t=tw,
                     hw=ctx.D,
                     fyw=fy,
-                    a=ctx.do,
+                    a=do,
                     eps=epsilon(fy),
                     M_Ed=M_Ed,
                     Mf_Rd=Mf,
@@ -192,8 +201,8 @@ def shear_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
             fyw=fy,
             hw=ctx.D,
             t=tw,
-            panel=ctx.panel,
-            a=ctx.do,
+            panel=panel,
+            a=do,
             eta=ctx.f("eta"),
             gamma_M1=ctx.f("gamma_M1"),
             Vbf_Rd=Vbf,
@@ -212,7 +221,7 @@ def shear_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
                     " no composite action: conservative",
                 ),
             )
-        elif ctx.do is None:
+        elif do is None:
             r = replace(r, notes=(*r.notes, "no transverse stiffeners: Vbf,Rd not counted"))
         elif M_Ed is None:
             r = replace(r, notes=(*r.notes, "no design moment at the station: Vbf,Rd not counted"))
@@ -238,10 +247,13 @@ def local_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 
 def bending_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     """Mc,Rd with the cross-section class of each state (6.2.5; 1-5 4.4 in class 4)."""
-    b = bending(ctx, ctx.built, ctx.tw_nominal, "as-built")
-    f = bending(ctx, ctx.found, ctx.tw_panel, "as-found")
+    b = bending(ctx, ctx.built, ctx.tw_nominal, "as-built", ctx.compression)
+    f = bending(ctx, ctx.found, ctx.tw_panel, "as-found", ctx.compression)
     cb, cf = int(b.value("class").value), int(f.value("class").value)
-    note = f"class {cb} as-built, class {cf} as-found (thickness found)"
+    note = (
+        f"class {cb} as-built, class {cf} as-found (thickness found), {ctx.compression} flange "
+        "in compression; the class and effective widths carry local buckling"
+    )
     if cf != cb:
         note += ": the loss changed the class"
     return [moment_state("bending", "bending resistance", b, f, note)]
@@ -256,14 +268,14 @@ def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitSt
             Af=Ag,
             fy=ctx.material.Fy,
             fu=ctx.material.Fu,
-            W_t=st.gross.props.S_bot,
+            W_t=st.gross.props.S_bot if ctx.compression == "top" else st.gross.props.S_top,
             gamma_M0=ctx.f("gamma_M0"),
             gamma_M2=ctx.f("gamma_M2"),
             where=w,
         )
         return r, r.Rr
 
-    return tension_flange(ctx, check, "Eq. 6.16 on the bottom flange")
+    return tension_flange(ctx, check, "Eq. 6.16 on the tension flange")
 
 
 def interaction_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -333,10 +345,22 @@ LIMIT_STATES = (
     LimitStateSpec("web_local", "web shear, local (EN 1993-1-1 6.2.6)", local_states),
     LimitStateSpec("bending", "bending resistance (EN 1993-1-1 6.2.5, 1-5 4.4)", bending_states),
     LimitStateSpec(
+        "ltb",
+        "lateral-torsional buckling (EN 1993-1-1 6.3.2, EN 1993-2 6.3.4.2)",
+        girder.ltb_states,
+    ),
+    LimitStateSpec(
         "tension_flange", "tension flange at holes (EN 1993-1-1 6.2.5(4))", tension_flange_states
     ),
     LimitStateSpec("interaction", "bending and shear (EN 1993-1-5 7.1)", interaction_states),
+    LimitStateSpec("flexure", "flexure, the least of the above", girder.flexure_states),
+    LimitStateSpec(
+        "girder_end", "girder ends (EN 1993-1-5 9.4, Section 6)", girder.girder_end_states
+    ),
     LimitStateSpec("rivets", "rivet lines (EN 1993-1-8 Table 3.4)", rivet_states),
+    LimitStateSpec(
+        "fatigue", "fatigue, riveted details (EN 1993-1-9, EN 1993-2 9.5.3)", girder.fatigue_states
+    ),
 )
 
 
@@ -350,6 +374,12 @@ class Rules(RulesBase):
         if opts.live_load:
             return opts.live_load
         return {"railway": "lm71", "highway": "lm1"}.get(self.use or "", "none")
+
+    def stiffener_check(self, defn, web, D: float, material):
+        return girder.stiffener_check(defn, web, D, material)
+
+    def girder_notes(self) -> list[Choice]:
+        return girder.girder_notes()
 
     def member_factors(self, member: Member, opts: AssessOptions) -> dict[str, Factor]:
         out = {"g": distribution(member, opts)}
@@ -407,7 +437,7 @@ class Rules(RulesBase):
 
 def build(opts: AssessOptions, survey: Survey) -> Family:
     use = survey.survey.use
-    defaults = default_factors(use)
+    defaults = {**default_factors(use), **girder.girder_factors(use)}
     key = Rules(defaults, use).model_key(opts)
     if key != "lm1":  # the LM1 adjustment factors are used with LM1 only
         defaults = {k: v for k, v in defaults.items() if k not in ("alpha_Q", "alpha_q")}

@@ -1,7 +1,8 @@
 """EN 1993 bending at a station: the cross-section class with the thickness found, the
 effective section of a class 4 section (EN 1993-1-5 4.4), and the tension flange at holes.
 
-The compression flange is the top one (sagging moment). Its outstands are the cover plates
+The compression flange is the top one in sagging, the bottom one in hogging (the sign of
+the moment at the station; ``compression``). Its outstands are the cover plates
 and the horizontal angle legs beyond the outer rivet line (c from the line to the free edge;
 a horizontal angle leg without a line through it counts its whole length, conservative).
 The web's c is the web depth of the chosen basis. Class 4 parts lose the ineffective widths
@@ -16,15 +17,15 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from core.checks.en1993_bending import (
-    bending_resistance,
-    epsilon,
+from core.checks.en1993_bending import bending_resistance
+from core.checks.en1993_buckling import epsilon
+from core.checks.en1993_class import (
     k_sigma_internal,
-    lambda_p,
     outstand_class,
+    plate_slenderness,
     rho_outstand,
     web_class,
-    web_ineffective_zone,
+    web_zone,
 )
 from core.checks.results import CapacityResult, CheckValue
 from core.families.context import StationContext, flange_area, part_thickness
@@ -77,12 +78,17 @@ class Outstand:
     y: tuple[float, float]
 
 
-def outstands(ctx: StationContext, st: StationSection) -> list[Outstand]:
-    """The compression (top) flange's outstands with their c and thickness at the station."""
+def _cls(c: float, t: float, fy: float) -> int:
+    return outstand_class(c, t, fy)[0]
+
+
+def outstands(ctx: StationContext, st: StationSection, compression: str = "top") -> list[Outstand]:
+    """The compression flange's outstands with their c and thickness at the station."""
     defn = ctx.defn
     vlines = [ln for ln in defn.rivet_lines if ln.axis == "vertical"]
     out = []
-    for pid in ctx.web.top_parts:
+    parts = ctx.web.top_parts if compression == "top" else ctx.web.bottom_parts
+    for pid in parts:
         p = defn.part(pid)
         through = [ln.position for ln in vlines if pid in ln.parts]
         r = st.gross.pieces.of(pid)
@@ -106,8 +112,11 @@ def outstands(ctx: StationContext, st: StationSection) -> list[Outstand]:
     return out
 
 
-def bending(ctx: StationContext, st: StationSection, tw: float, label: str) -> CapacityResult:
-    """Mc,Rd of one state (as-built or as-found) with its class and working."""
+def bending(
+    ctx: StationContext, st: StationSection, tw: float, label: str, compression: str = "top"
+) -> CapacityResult:
+    """Mc,Rd of one state (as-built or as-found) with its class and working; ``compression``
+    the flange in compression (``"top"`` sagging, ``"bottom"`` hogging)."""
     fy = ctx.material.Fy
     eps = epsilon(fy)
     p = st.gross.props
@@ -115,8 +124,8 @@ def bending(ctx: StationContext, st: StationSection, tw: float, label: str) -> C
     vals: list[CheckValue] = [CheckValue("epsilon", eps, "dimensionless", "sqrt(235/fy)", SRC_52)]
     # flange outstands
     cls_f, worst = 1, None
-    for o in outstands(ctx, st):
-        k = outstand_class(o.c / o.t, eps)
+    for o in outstands(ctx, st, compression):
+        k = _cls(o.c, o.t, fy)
         if worst is None or o.c / o.t > worst.c / worst.t:
             worst = o
         cls_f = max(cls_f, k)
@@ -130,11 +139,14 @@ def bending(ctx: StationContext, st: StationSection, tw: float, label: str) -> C
                 SRC_52,
             )
         )
-    # web
+    # web: compressed edge first
     c = hi - lo
-    psi = (lo - p.yc) / (hi - p.yc) if hi > p.yc else 1.0
-    alpha = min(max((hi - p.y_pna) / c, 0.0), 1.0)
-    cls_w = web_class(c / tw, eps, alpha, psi)
+    comp, tens = (hi, lo) if compression == "top" else (lo, hi)
+    sgn = 1.0 if compression == "top" else -1.0
+    psi = (tens - p.yc) / (comp - p.yc) if sgn * (comp - p.yc) > 0 else 1.0
+    psi = min(max(psi, -3.0), 1.0)
+    alpha = min(max(abs(comp - p.y_pna) / c, 1e-6), 1.0)
+    cls_w = web_class(c, tw, fy, psi=psi, alpha=alpha)[0]
     vals += [
         CheckValue("c/t web", c / tw, "dimensionless", f"web, c = {ctx.depth_words}", SRC_52),
         CheckValue("psi", psi, "dimensionless", "stress ratio of the web edges (elastic)", SRC_52),
@@ -146,7 +158,7 @@ def bending(ctx: StationContext, st: StationSection, tw: float, label: str) -> C
     W_eff = None
     notes = [f"class {cls} (flange {cls_f}, web {cls_w}) with the thickness {label}"]
     if cls == 4:
-        W_eff, more, words = effective_modulus(ctx, st, tw, eps)
+        W_eff, more, words = effective_modulus(ctx, st, tw, eps, compression)
         vals += more
         notes.append(words)
     return bending_resistance(
@@ -163,16 +175,17 @@ def bending(ctx: StationContext, st: StationSection, tw: float, label: str) -> C
 
 
 def effective_modulus(
-    ctx: StationContext, st: StationSection, tw: float, eps: float
+    ctx: StationContext, st: StationSection, tw: float, eps: float, compression: str = "top"
 ) -> tuple[float, list[CheckValue], str]:
     """Weff,min of a class 4 section and the working (EN 1993-1-5 4.4)."""
     r = st.gross.pieces.rects.copy()
     vals: list[CheckValue] = []
     words = []
-    for o in outstands(ctx, st):
-        if outstand_class(o.c / o.t, eps) < 4:
+    fy = ctx.material.Fy
+    for o in outstands(ctx, st, compression):
+        if _cls(o.c, o.t, fy) < 4:
             continue
-        lam = lambda_p(o.c / o.t, eps, 0.43)
+        lam = plate_slenderness(o.c, o.t, eps, 0.43)
         rho = rho_outstand(lam)
         cut = (1.0 - rho) * o.c
         if cut <= 0.0:
@@ -189,25 +202,24 @@ def effective_modulus(
     lo, hi = ctx.y_depth
     wr = st.gross.pieces.of(ctx.web.web_id)
     wx0, wx1 = float(wr[:, 0].min()), float(wr[:, 2].max())
-    if hi > yc and (hi - lo) / tw > 0:
-        z = web_ineffective_zone(y_top=hi, y_bot=lo, y_na=yc, t=tw, eps=eps)
-        psi = (lo - yc) / (hi - yc)
+    if lo < yc < hi:
+        z = web_zone(y_edges=(lo, hi), y_na=yc, tw=tw, eps=eps, compression=compression)
         vals += [
             CheckValue(
                 "k_sigma web",
-                k_sigma_internal(psi),
+                k_sigma_internal(z.psi),
                 "dimensionless",
                 "buckling factor, Table 4.1",
                 SRC_44,
             ),
             CheckValue(
-                "lambda_p web", z.lambda_p, "dimensionless", "plate slenderness of the web", SRC_44
+                "lambda_p web", z.lam_p, "dimensionless", "plate slenderness of the web", SRC_44
             ),
             CheckValue("rho web", z.rho, "dimensionless", "web reduction factor", SRC_44),
         ]
-        if z.height > 0.0:
-            r = remove_box(r, (wx0, z.lo, wx1, z.hi))
-            words.append(f"web not effective from {z.lo:.0f} to {z.hi:.0f} mm")
+        if z.hole is not None and z.height > 0.0:
+            r = remove_box(r, (wx0, z.hole[0], wx1, z.hole[1]))
+            words.append(f"web not effective from {z.hole[0]:.0f} to {z.hole[1]:.0f} mm")
     _A, yc, Ix, yb, yt = rect_props(r)
     W = min(Ix / (yt - yc), Ix / (yc - yb))
     vals.append(

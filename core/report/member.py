@@ -9,6 +9,7 @@ from core.assess.results import MemberResult, StationResult
 from core.report import findings, rating
 from core.report.drawing import flange_windows, section_drawing
 from core.report.fmt import position, position_label, ratio, rf, system_name, with_unit
+from core.report.girderpages import fatigue_lives, girder_ends, stiffener_tables
 from core.report.page import PageInfo, Tracked
 from core.report.rivetmap import ineffective_rows, rivet_map
 from core.report.styles import LOSS, PERF, STEEL, Styles, esc, level_markup
@@ -210,6 +211,7 @@ def member_pages(
                 out.append(CondPageBreak(560))
             out += station_sheet(st, s, system, width, info, sym)
             out.append(Spacer(1, 8))
+    out += girder_ends(st, m, system, width, info, sym)
     if any(ln.positions for ln in m.lines):
         block = [
             Paragraph("Rivet lines along the member", st.h2),
@@ -243,6 +245,8 @@ def member_pages(
             )
         )
         out += capacity_tables(st, m, system, width, measure)
+        out += fatigue_lives(st, m, system, width)
+        out += stiffener_tables(st, m, system, width)
         out += rating.summary(st, m, system, width, measure)
         out += rating.envelopes(st, m, system, width)
         out.append(CondPageBreak(150))

@@ -216,9 +216,17 @@ def capacity_tables(st: Styles, m: MemberResult, system: str, width: float, meas
     out = []
     pu = position_label(system)
     for kind, title in (
-        ("force", "Web shear: the panel and the local check"),
+        ("force", "Web shear (the panel and the local check) and the girder ends"),
         ("force_per_length", "Rivet lines: shear flow resistance against the factored shear flow"),
-        ("moment", "Flexure: flange yield or bending resistance, and the tension flange at holes"),
+        (
+            "moment",
+            "Flexure: each flexural limit state and the least of them, the one rated for flexure",
+        ),
+        (
+            "stress",
+            "Fatigue of the riveted detail: the infinite-life limit against the design stress "
+            "range (not rated; its life below)",
+        ),
     ):
         u = unit_label(kind, system)
         rows, rules = [], []

@@ -354,7 +354,8 @@ class Member(_Model):
     the survey's length unit), span, stiffener spacing ``do`` (None = unstiffened),
     rivet states per line, optional simple-span dead loads and live load data, its
     condition (for the condition factor) and structure type (for the system factor), and
-    its stations."""
+    its stations; its girder details (stiffeners, supports, bracing, fatigue traffic) are
+    :mod:`core.survey.details`."""
 
     id: str = Field(min_length=1)
     label: str = ""
@@ -366,6 +367,10 @@ class Member(_Model):
     live_load: LiveLoad | None = None
     condition: Condition | None = None
     structure_type: StructureType | None = None
+    stiffeners: list[Stiffener] = Field(default_factory=list, max_length=1000)
+    supports: list[Support] = Field(default_factory=list, max_length=20)
+    bracing: Bracing | None = None
+    fatigue: FatigueData | None = None
     stations: list[Station] = Field(default_factory=list)
 
     @model_validator(mode="before")
@@ -475,3 +480,10 @@ class Survey(_Model):
     def document(self) -> dict[str, Any]:
         """The interchange document (plain JSON types)."""
         return self.model_dump(mode="json")
+
+
+# the girder details use this module's base classes; imported last, then resolved
+from core.survey.details import Bracing, FatigueData, Stiffener, Support  # noqa: E402
+
+Member.model_rebuild()
+Survey.model_rebuild()

@@ -25,6 +25,7 @@ from core.definition import SectionDefinition
 from core.errors import AsfoundError, InputError
 from core.errors import where as join
 from core.survey import docversions
+from core.survey.checkdetails import check_details
 from core.survey.checkitems import _kind, check_cut, check_reading
 from core.survey.model import FORMAT, VERSION, Member, Station, Survey
 from core.survey.problems import Problem
@@ -49,6 +50,7 @@ def place_of(doc: Any, path: tuple | list) -> str:
     node = doc
     names = {"members": "member", "stations": "station", "readings": "reading", "bands": "band"}
     names |= {"perforations": "perforation", "rivets": "rivet line", "axles": "axle"}
+    names |= {"stiffeners": "stiffener", "supports": "support"}
     key: Any = None
     for step in path:
         try:
@@ -304,6 +306,7 @@ def check_member(m: Member, where: str = "") -> list[Problem]:
                 _range(v, 0.0, limits.MAX_FORCE_PER_LENGTH, name, "N/mm", wq, probs)
     if m.live_load is not None:
         probs += check_live_load(m, w)
+    probs += check_details(m, L, where)
     probs += _dupes([s.id for s in m.stations], "station", w)
     for st in m.stations:
         probs += check_station(m, defn, st, L, where)

@@ -20,10 +20,13 @@ def survey(doc: dict) -> Survey:
 
 
 def without_loss(doc: dict) -> dict:
-    """The same survey with no readings, bands, perforations or rivet states."""
+    """The same survey with no readings, bands, perforations or rivet states (stiffeners
+    included)."""
     d = copy.deepcopy(doc)
     for m in d["members"]:
         m["rivets"] = []
+        for st in m.get("stiffeners", []):
+            st["readings"], st["bands"] = [], []
         for s in m["stations"]:
             s["readings"], s["bands"], s["perforations"] = [], [], []
     return d

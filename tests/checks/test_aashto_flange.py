@@ -7,6 +7,8 @@ Fyc = Fyw = 345 MPa, E = 200 000 MPa, Sxc = 1e7 mm³: lambda_pf = 0.38 sqrt(E/Fy
 Fyr = 241.5 MPa; lambda_rf = 0.56 sqrt(E/Fyr) = 16.11552.
 """
 
+import math
+
 import pytest
 from hypothesis import given
 from hypothesis import strategies as st
@@ -76,6 +78,18 @@ def test_Rb():
     assert {v.symbol for v in vals} >= {"2Dc/tw", "lambda_rw", "awc", "Rb"}
     # stocky web: 2 * 400 / 8 = 100 <= 137.24 -> Rb = 1
     assert web_load_shedding(Dc=400, tw=8, Afc=8000, E=200_000, Fyc=345)[0] == 1.0
+
+
+def test_Rb_with_E_200_GPa_and_Fyc_250():
+    # Dc = 800, tw = 8, bfc tfc = 10 000 mm², E = 200 000, Fyc = 250:
+    # lambda_rw = 5.7 sqrt(800) = 161.22; 2Dc/tw = 200 > lambda_rw
+    # a_wc = 2 * 800 * 8 / 10000 = 1.28; Rb = 1 - 1.28/(1200 + 384) (200 - 161.22) = 0.96867
+    Rb, _ = web_load_shedding(Dc=800, tw=8, Afc=10_000, E=200_000, Fyc=250)
+    lam = 5.7 * math.sqrt(800.0)
+    assert Rb == pytest.approx(1 - 1.28 / 1584 * (200 - lam), rel=1e-12)
+    assert Rb == pytest.approx(0.96867, abs=1e-5)
+    # a stocky web sheds nothing: 2 * 400 / 8 = 100 < 161.2 -> Rb = 1
+    assert web_load_shedding(Dc=400, tw=8, Afc=10_000, E=200_000, Fyc=250)[0] == 1.0
 
 
 def test_Rb_enters_flb():

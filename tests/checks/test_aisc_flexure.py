@@ -6,6 +6,8 @@ Fy = 345 MPa, E = 200 000 MPa, Sxc = Sxt = 1e7 mm³, Zx = 1.1e7 mm³, rt = 80 mm
 h0 = 1500, h = hc = hp = 1450 mm, Afc = 8000 mm², Iyc/Iy = 0.5; sqrt(E/Fy) = 24.07717.
 """
 
+import math
+
 import pytest
 from hypothesis import given
 from hypothesis import strategies as st
@@ -15,6 +17,7 @@ from core.checks.aisc_flexure import (
     BuiltUpI,
     Cb_quarter_points,
     flange_local_buckling,
+    flange_yielding,
     lateral_torsional_buckling,
 )
 from core.errors import InputError
@@ -140,3 +143,36 @@ def test_longer_unbraced_length_never_raises_strength(L1, L2, Cb, tw):
     assert lateral_torsional_buckling(sec, Lb=hi, Cb=Cb).Rn <= lateral_torsional_buckling(
         sec, Lb=lo, Cb=Cb
     ).Rn * (1 + 1e-12)
+
+
+def test_flange_yielding_F5_with_Rpg():
+    # Fy = 250, E = 200 000: lambda_r = 5.70 sqrt(800) = 161.22; hc/tw = 1800/10 = 180
+    # aw = 1800 * 10 / 10 000 = 1.8; Rpg = 1 - 1.8/(1200 + 540) (180 - 161.22) = 0.98057
+    # (F5-6); Sxt > Sxc: no tension flange yielding (F5.4), Mn = Rpg Fy Sxc (F5-1)
+    sec = BuiltUpI(
+        Fy=250, E=200_000, Sxc=2e7, Sxt=2.2e7, Zx=2.4e7, rt=80, J=1e6, h0=1850, h=1800,
+        hc=1800, hp=1800, tw=10, Afc=10_000, Iyc=5e7, Iy=1e8,
+    )  # fmt: skip
+    r = flange_yielding(sec, phi_b=0.9)
+    Rpg = 1 - 1.8 / 1740 * (180 - 5.7 * math.sqrt(800))
+    assert Rpg == pytest.approx(0.98057, abs=1e-5)
+    assert r.Rn == pytest.approx(Rpg * 250 * 2e7) and r.phi == 0.9 and "F5-1" in r.clause
+
+
+def test_flange_yielding_F4_Rpc_and_Rpt():
+    # Sxt = 0.9e7 < Sxc = 1e7 (F4.4 applies). Mp = Fy Zx = 345 * 1.1e7 (below 1.6 Fy Sx);
+    # lambda_pw = sqrt(E/Fy) / (0.54 * 1.1/0.9 - 0.09)² = 24.07717 / 0.57² = 74.1064;
+    # t = (120.833 - 74.1064) / (137.2399 - 74.1064) = 0.740124;
+    # Rpc = 1.1 - 0.1 t = 1.025988 (F4-9b); Rpt = 1.22222 - 0.22222 t = 1.057750 (F4-16b);
+    # Mn,c = Rpc Fy Sxc = 3.53966e9, Mn,t = Rpt Fy Sxt = 3.28431e9 N mm: tension governs (F4-15)
+    sec = BuiltUpI(tw=12, **{**BASE, "Sxt": 0.9e7})
+    lam_pw = math.sqrt(200_000 / 345) / 0.57**2
+    t = (1450 / 12 - lam_pw) / (5.70 * math.sqrt(200_000 / 345) - lam_pw)
+    Rpc, Rpt = 1.1 - 0.1 * t, 1.1 / 0.9 - (1.1 / 0.9 - 1) * t
+    assert sec.Rpc == pytest.approx(Rpc) and sec.Rpt == pytest.approx(Rpt)
+    assert Rpt == pytest.approx(1.05775, abs=1e-5)
+    r = flange_yielding(sec)
+    assert r.Rn == pytest.approx(Rpt * 345 * 0.9e7) and "F4-15" in r.clause
+    # a small compression flange (Iyc/Iy <= 0.23): Rpt = 1.0 (F4-17)
+    small = BuiltUpI(tw=12, **{**BASE, "Sxt": 0.9e7, "Iyc": 2e7})
+    assert small.Rpt == 1.0 and flange_yielding(small).Rn == pytest.approx(345 * 0.9e7)

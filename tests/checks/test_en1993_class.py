@@ -10,6 +10,7 @@ import math
 
 import pytest
 
+from core.checks.en1993_buckling import epsilon
 from core.checks.en1993_class import (
     effective_web,
     k_sigma_internal,
@@ -17,6 +18,7 @@ from core.checks.en1993_class import (
     rho_internal,
     rho_outstand,
     web_class,
+    web_zone,
 )
 from core.definition import SectionDefinition
 from core.errors import InputError
@@ -92,3 +94,55 @@ def test_fully_effective_web_has_no_hole():
 def test_bad_edges():
     with pytest.raises(InputError, match="not within the web"):
         effective_web(GIRDER, None, fy=355, tw=8, y_edges=(1500, 2025))
+
+
+def test_epsilon_and_outstand_limits_between_the_classes():
+    # eps = sqrt(235/fy): 1.0 for S235, 0.8136 for S355; outstand c/t limits 9, 10, 14 eps
+    assert epsilon(235) == 1.0 and epsilon(355) == pytest.approx(0.813616, rel=1e-6)
+    assert [outstand_class(c, 10, 235)[0] for c in (90, 95, 139, 141)] == [1, 2, 3, 4]
+
+
+def test_web_limits_in_bending_with_compression():
+    # alpha = 0.6: 396 / (13 * 0.6 - 1) = 58.24 eps, 456 / 6.8 = 67.06 eps (Table 5.2 sheet 1)
+    _, vals = web_class(800, 10, 235, psi=-0.5, alpha=0.6)
+    limits = {v.symbol: v.value for v in vals}
+    assert limits["class 1 limit"] == pytest.approx(396 / 6.8)
+    assert limits["class 2 limit"] == pytest.approx(456 / 6.8)
+    # alpha <= 0.5: 36 eps / alpha and 41.5 eps / alpha; psi <= -1: 62 eps (1 - psi) sqrt(-psi)
+    _, vals = web_class(800, 10, 235, psi=-2.0, alpha=0.4)
+    limits = {v.symbol: v.value for v in vals}
+    assert limits["class 1 limit"] == pytest.approx(36 / 0.4)
+    assert limits["class 2 limit"] == pytest.approx(41.5 / 0.4)
+    assert limits["class 3 limit"] == pytest.approx(62 * 3 * math.sqrt(2))
+    assert web_class(1200, 10, 235)[0] == 3 and web_class(1300, 10, 235)[0] == 4
+
+
+def test_k_sigma_between_the_table_points():
+    # Table 4.1: 8.2 / (1.05 + psi) at 0.5; 7.81 - 6.29 psi + 9.78 psi² at -0.5;
+    # 5.98 (1 - psi)² at -2; outside -3 to 1 an error
+    assert k_sigma_internal(0.5) == pytest.approx(8.2 / 1.55)
+    assert k_sigma_internal(-0.5) == pytest.approx(7.81 + 6.29 * 0.5 + 9.78 * 0.25)
+    assert k_sigma_internal(-2.0) == pytest.approx(5.98 * 9)
+    with pytest.raises(InputError, match="psi"):
+        k_sigma_internal(-3.5)
+    # Eq. 4.2 at psi = -1: lambda_p <= 0.5 + sqrt(0.14) = 0.87417 -> 1; at 1.2:
+    # (1.2 - 0.11) / 1.44
+    assert rho_internal(0.87, -1.0) == 1.0
+    assert rho_internal(1.2, -1.0) == pytest.approx(1.09 / 1.44)
+
+
+def test_web_zone_in_pure_bending():
+    # web 0..1500 mm, t = 10, NA at 750, eps = 1 (S235): psi = -1, k = 23.9,
+    # lambda_p = 150 / (28.4 sqrt(23.9)) = 1.08037, rho = (1.08037 - 0.11)/1.08037² = 0.83137,
+    # b_c = 750, b_eff = 623.5, b_e1 = 249.4 at the top, b_e2 = 374.1 from the NA:
+    # ineffective from 1124.1 to 1250.6 mm (height b_c - b_eff = 126.5 mm)
+    z = web_zone(y_edges=(0, 1500), y_na=750, tw=10, eps=1.0)
+    lam = 150 / (28.4 * math.sqrt(23.9))
+    rho = (lam - 0.11) / lam**2
+    assert z.lam_p == pytest.approx(lam) and z.rho == pytest.approx(rho)
+    assert z.hole == pytest.approx((750 + 0.6 * rho * 750, 1500 - 0.4 * rho * 750))
+    assert z.height == pytest.approx(750 * (1 - rho))
+    assert z.rho == pytest.approx(0.83137, abs=1e-5)
+    # hogging: the mirror image about the neutral axis
+    h = web_zone(y_edges=(0, 1500), y_na=750, tw=10, eps=1.0, compression="bottom")
+    assert h.hole == pytest.approx((1500 - z.hole[1], 1500 - z.hole[0]))

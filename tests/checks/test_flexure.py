@@ -1,18 +1,11 @@
 """Flexure of the AASHTO family: flange yield Fn = Rb Rh Fyf (AASHTO LRFD 9th ed. 2020,
-6.10.8.1.1 and 6.10.8.3), the web load-shedding factor Rb (6.10.1.10.2) and the tension
+6.10.8.1.1 and 6.10.8.3; Rb in test_aashto_flange) and the tension
 flange at holes, 6.10.1.8-1 ft <= 0.84 (An/Ag) Fu <= Fyt; all from memory; hand
 calculations from the clauses."""
 
-import math
-
 import pytest
 
-from core.checks.flexure import (
-    flange_yield,
-    load_shedding_Rb,
-    net_area_ratio,
-    tension_flange_net_section,
-)
+from core.checks.flexure import flange_yield, net_area_ratio, tension_flange_net_section
 from core.errors import InputError
 
 
@@ -32,19 +25,6 @@ def test_as_built_and_as_found_are_two_calls():
     # 36 ksi * 504 in³ = 18 144 kip·in; ratio 430/504 (hand calculation)
     assert built.Rn == pytest.approx(18_144 * 112_984.829, rel=1e-6)
     assert found.Rn / built.Rn == pytest.approx(430 / 504)
-
-
-def test_load_shedding_Rb():
-    # Dc = 800, tw = 8, bfc tfc = 10 000 mm², E = 200 000, Fyc = 250:
-    # lambda_rw = 5.7 sqrt(800) = 161.22; 2Dc/tw = 200 > lambda_rw
-    # a_wc = 2 * 800 * 8 / 10000 = 1.28; Rb = 1 - 1.28/(1200 + 384) (200 - 161.22) = 0.96867
-    Rb, vals = load_shedding_Rb(Dc=800, tw=8, bfc_tfc=10_000, E=200_000, Fyc=250)
-    lam = 5.7 * math.sqrt(800.0)
-    assert Rb == pytest.approx(1 - 1.28 / 1584 * (200 - lam), rel=1e-12)
-    assert Rb == pytest.approx(0.96867, abs=1e-5)
-    # a stocky web sheds nothing: 2 * 400 / 8 = 100 < 161.2 -> Rb = 1
-    assert load_shedding_Rb(Dc=400, tw=8, bfc_tfc=10_000, E=200_000, Fyc=250)[0] == 1.0
-    assert {v.symbol for v in vals} >= {"Rb", "lambda_rw", "a_wc"}
 
 
 def test_net_section_fracture_governs():

@@ -183,3 +183,33 @@ def test_us_report_in_us_units(us):
     assert "not applicable" in text and not s.found.shear_applicable
     for ls in s.limit_states:
         assert f"{ls.name} {value(ls.C_built, ls.kind, 'us')}" in text
+
+
+def test_girder_ends_are_drawn_with_their_limit_states_and_inputs(us):
+    rep, _, text = us
+    kinds = {f[0] for f in rep.figures}
+    # one elevation per support and the bearing stiffeners in plan (both have end loss)
+    assert {"girder-end-S", "girder-end-N", "stiffener-BS-S", "stiffener-BS-N"} <= kinds
+    m = rep.assessment.members[0]
+    for sup in m.details.supports:
+        assert flat(f"bearing length N = {value(sup.N, 'length', 'us')} in") in text
+    n8 = m.stations[-1]
+    ls = n8.limit_state("stiffener_bearing:N")
+    row = (
+        f"{ls.name} {value(ls.C_built, 'force', 'us')} {value(ls.C_found, 'force', 'us')} "
+        f"{ratio(ls.ratio)} {value(ls.demand, 'force', 'us')} {rf(ls.measure)}"
+    )
+    assert row in text
+    # the panels, the stiffeners that no longer count and why, and the fatigue lives
+    assert "Intermediate stiffeners and web panels" in text
+    assert flat("projecting width 127 mm > 16 tp") in text
+    assert "remaining 36 y" in text
+
+
+def test_the_assumptions_state_the_girder_bases_and_nothing_is_left_unchecked(us):
+    _, _, text = us
+    assert "not yet checked" not in text
+    for item in ("flexural resistance", "unbraced length and moment diagram", "girder ends",
+                 "web at the bearing", "web panels and tension field", "member NG: supports",
+                 "member NG: bracing of the top flange"):  # fmt: skip
+        assert item in text, item

@@ -88,3 +88,18 @@ def test_loss_is_tinted_in_the_bottom_flange_detail(rendered):
     r, g, b = (int(255 * c) for c in (LOSS.red, LOSS.green, LOSS.blue))
     near = [p for p in crop.getdata() if abs(p[0] - r) + abs(p[1] - g) + abs(p[2] - b) < 40]
     assert len(near) > 20
+
+
+def test_the_girder_end_shows_the_stiffener_loss(tmp_path):
+    rep = build_report(SI_SAMPLE, tmp_path / "si.pdf")
+    _, page, box = next(f for f in rep.figures if f[0] == "girder-end-B")
+    subprocess.run(
+        ["pdftoppm", "-png", "-r", str(DPI), "-f", str(page), "-l", str(page), str(rep.path),
+         str(tmp_path / "g")],
+        check=True,
+    )  # fmt: skip
+    img = Image.open(next(tmp_path.glob("g-*.png"))).convert("RGB")
+    crop = _crop(img, box, img.size[1] * 72.0 / DPI)
+    r, g, b = (int(255 * c) for c in (LOSS.red, LOSS.green, LOSS.blue))
+    near = [p for p in crop.getdata() if abs(p[0] - r) + abs(p[1] - g) + abs(p[2] - b) < 40]
+    assert len(near) > 20  # the stiffener's loss band and the web's, tinted
