@@ -10,6 +10,7 @@ functions to find them in the PDF text.
 from __future__ import annotations
 
 import math
+import re
 
 from core.units import from_internal, show, symbol
 
@@ -109,3 +110,42 @@ def position_label(system: str) -> str:
 
 def system_name(system: str) -> str:
     return "SI units" if system == "si" else "US customary units"
+
+
+#: SI quantities that engine prose (reasons, notes, choice values) may carry: symbol -> (kind,
+#: factor from the printed number to the internal unit)
+_PROSE_UNITS = {
+    "mm²": ("area", 1.0),
+    "mm": ("length", 1.0),
+    "MPa": ("stress", 1.0),
+    "kN": ("force", 1e3),
+}
+_PROSE = re.compile(r"(?<![\w.])(-?\d[\d,]*(?:\.\d+)?(?:[eE][+-]?\d+)?) ?(mm²|mm|MPa|kN)(?![\w²])")
+
+_LABELLED = re.compile(r"(-?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?): (.*), (mm²|mm|MPa|kN)", re.S)
+
+
+def prose(text: str, system: str) -> str:
+    """Free text from the engine with its SI quantities shown in ``system``'s units.
+
+    The checks and the assumptions word their reasons in the internal units ("projecting
+    width 127 mm > 16 tp = 91.44 mm"); a US customary report prints each such quantity in
+    its display unit ("5 in > 16 tp = 3.6 in"), so that one page never mixes the two
+    systems. SI text is returned unchanged; numbers without a unit (clause numbers,
+    factors) are never touched."""
+    if system == "si" or not text:
+        return text
+
+    def one(m: re.Match) -> str:
+        if text[m.start() - 1 : m.start()] == "(" and text[m.end() : m.end() + 1] == ")":
+            return m.group(0)  # already the SI twin of a quantity printed in US units
+        kind, k = _PROSE_UNITS[m.group(2)]
+        shown = show(float(m.group(1).replace(",", "")) * k, kind, system)
+        return f"{num(shown.value, 3)} {shown.symbol}"
+
+    labelled = _LABELLED.fullmatch(text)  # "124.1: nominal shear stress of ..., MPa"
+    if labelled and labelled.group(3) in _PROSE_UNITS:
+        kind, k = _PROSE_UNITS[labelled.group(3)]
+        shown = show(float(labelled.group(1)) * k, kind, system)
+        return f"{num(shown.value, 3)}: {labelled.group(2)}, {shown.symbol}"
+    return _PROSE.sub(one, text)

@@ -7,7 +7,7 @@ from reportlab.platypus import CondPageBreak, KeepTogether, Paragraph, Table, Ta
 
 from core.assess.detailsout import life_words
 from core.assess.results import MemberResult
-from core.report.fmt import position, position_label, ratio, rf, unit_label, value
+from core.report.fmt import position, position_label, prose, ratio, rf, unit_label, value
 from core.report.girderend import elevation, stiffener_plan
 from core.report.page import PageInfo, Tracked
 from core.report.styles import Styles, esc, level_markup
@@ -160,7 +160,7 @@ def stiffener_tables(st: Styles, m: MemberResult, system: str, width: float) -> 
                     position(v["st"].x, system),
                     yn(v.get("built")),
                     yn(f),
-                    "; ".join(f.reasons) if f is not None and f.reasons else "–",
+                    prose("; ".join(f.reasons), system) if f is not None and f.reasons else "–",
                     v["st"].loss_words,
                 ]
             )

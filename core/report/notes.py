@@ -11,6 +11,7 @@ from reportlab.platypus import KeepTogether, Paragraph, Spacer, Table
 
 from core import CAUTION
 from core.assess.results import Assessment
+from core.report.fmt import prose
 from core.report.source import Source
 from core.report.styles import INK, RULE, Styles, esc, make_table_style, text
 from core.report.tables import caption, grid
@@ -57,7 +58,7 @@ def assumptions(st: Styles, a: Assessment, system: str, width: float) -> list:
             st.body,
         )
     )
-    rows = [[x.item, x.value, x.source] for x in a.assumptions]
+    rows = [[x.item, prose(x.value, system), x.source] for x in a.assumptions]
     out.append(caption(st, "Assumptions", system))
     out.append(grid(st, ["item", "value", "source"], rows, [width * x for x in (0.25, 0.47, 0.28)]))
     out.append(Spacer(1, 8))

@@ -7,7 +7,7 @@ import math
 from hypothesis import given
 from hypothesis import strategies as st
 
-from core.report.fmt import num, position, ratio, unit_label, value
+from core.report.fmt import num, position, prose, ratio, unit_label, value
 
 
 def test_us_display_units_by_exact_definitions():
@@ -51,3 +51,23 @@ def test_num_keeps_the_significant_digits(v, digits, negative):
     back = float(s.replace(",", ""))
     assert "e" not in s
     assert math.isclose(back, v, rel_tol=0.51 * 10 ** (1 - digits))
+
+
+def test_prose_shows_si_quantities_in_us_units():
+    """Engine prose on a US page in US units. 1 in = 25.4 mm exactly and 1 ksi = 6.894757 MPa
+    (NIST SP 811, Appendix B); 127 mm = 5.00 in, 91.44 mm = 3.60 in, 206.8 MPa = 30.0 ksi."""
+    s = "projecting width 127 mm > 16 tp = 91.44 mm (6.10.11.1.2-2)"
+    assert prose(s, "us") == "projecting width 5.00 in > 16 tp = 3.60 in (6.10.11.1.2-2)"
+    assert prose("Fy 206.8 MPa, Fu 413.7 MPa", "us") == "Fy 30.0 ksi, Fu 60.0 ksi"
+    assert prose("124.1: nominal shear stress, MPa", "us") == "18.0: nominal shear stress, ksi"
+    assert prose("4.448 kN", "us") == "1.00 kip"  # 1 kip = 4.448222 kN (NIST SP 811)
+
+
+def test_prose_leaves_si_text_clause_numbers_and_si_twins_alone():
+    """Property: SI pages and numbers without a unit are never rewritten, and a quantity
+    already printed in US units keeps its SI twin in parentheses."""
+    s = "projecting width 127 mm > 16 tp (6.10.11.1.2-2), 1.4 Apn Fys"
+    assert prose(s, "si") == s
+    assert prose("clause 6.10.11.1.2-2, factor 1.4", "us") == "clause 6.10.11.1.2-2, factor 1.4"
+    assert prose("60.5 in (1537 mm)", "us") == "60.5 in (1537 mm)"
+    assert "mm" not in prose("a 12mm plate and 3 mm² of 9 MPa", "us")
