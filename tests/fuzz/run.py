@@ -84,6 +84,7 @@ def main() -> None:
             hangs = [c for c, d in tally.failures if d.startswith("no answer")]
             for case in hangs[:5]:
                 print(f"  {kind} hang: {case[:600]}")
+            print(f"  {kind} slowest ({tally.slowest:.2f} s): {tally.slowest_case[:600]}")
     print(
         f"\n{'input':8} {'cases':>6} {'ok':>6} {'refused':>8} {'crash':>6} {'hang':>5} "
         f"{'slowest s':>10} {'wall s':>8}"

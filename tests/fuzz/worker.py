@@ -45,11 +45,13 @@ class Tally:
 
     counts: dict[str, int] = field(default_factory=dict)
     slowest: float = 0.0
+    slowest_case: str = ""
     failures: list[tuple[str, str]] = field(default_factory=list)
 
     def add(self, out: Outcome, case: str) -> None:
         self.counts[out.kind] = self.counts.get(out.kind, 0) + 1
-        self.slowest = max(self.slowest, out.seconds)
+        if out.seconds >= self.slowest:
+            self.slowest, self.slowest_case = out.seconds, case
         if out.kind in ("crash", "hang"):
             self.failures.append((case, out.detail))
 
