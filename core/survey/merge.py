@@ -41,49 +41,26 @@ from pathlib import Path
 
 from pydantic import ValidationError
 
-from core.errors import InputError
+from core.errors import AsfoundError, InputError, StoreError
 from core.outputs import atomic_output, check_output, same_file
 from core.survey.device import check_device, short, this_device
-from core.survey.mergeside import Change, ERow, HRow, MergeError, Side, read_side, rename
-from core.survey.migrations import CURRENT, V4_SCHEMA
-from core.survey.model import Band, Perforation, Reading, Station, Survey
+from core.survey.mergeside import (
+    Change,
+    Conflict,
+    ERow,
+    HRow,
+    MergeError,
+    Plan,
+    Side,
+    read_side,
+    rename,
+)
+from core.survey.mergewrite import verify, write_plan
+from core.survey.model import Band, Perforation, Reading, Station
 
 _MISSING = object()
 _PARENT = {"member": 0, "station": 1}
 _NUMBERED = re.compile(r"^(.*?)(\d+)$")
-
-
-@dataclass(frozen=True)
-class Conflict:
-    """One decision of a merge. ``what``: "value", "renamed" or "withdrawn"; ``kept`` and
-    ``other`` the values (JSON text) or ids; the times and devices of both sides."""
-
-    what: str
-    kind: str
-    member: str
-    station: str
-    entity: str
-    field: str
-    uid: str
-    kept: str | None
-    other: str | None
-    kept_at: str
-    kept_device: str
-    other_at: str
-    other_device: str
-    note: str
-
-    def line(self) -> str:
-        place = " / ".join(
-            x
-            for x in (
-                self.member and f"member {self.member}",
-                self.station and f"station {self.station}",
-                f"{self.kind} {self.entity}".strip(),
-            )
-            if x
-        )
-        return f"{self.what}: {place}: {self.note}"
 
 
 @dataclass(frozen=True)
@@ -97,16 +74,6 @@ class MergeResult:
     both: int
     changes_a: int
     changes_b: int
-
-
-@dataclass
-class _Plan:
-    entities: list[ERow]
-    header: dict
-    changes: list[Change]
-    conflicts: list[Conflict]
-    prefix: int
-    counts: tuple[int, int, int, int, int]
 
 
 def merge_stores(
@@ -131,11 +98,20 @@ def merge_stores(
             f"(survey {_survey_id(sb)!r}, store made {sb.meta['created']}) are stores of "
             "different surveys: only copies of one store can be merged"
         )
-    plan = plan_merge(sa, sb)
     at = _dt.datetime.now(_dt.UTC).isoformat(timespec="milliseconds")
-    with atomic_output(dst, replace=False) as tmp:
-        _write(tmp, sa, sb, plan, at, dev)
-        _verify(tmp)
+    try:
+        plan = plan_merge(sa, sb)
+        with atomic_output(dst, replace=False) as tmp:
+            write_plan(tmp, sa, sb, plan, at, dev)
+            verify(tmp)
+    except AsfoundError:
+        raise
+    except (ValueError, TypeError, KeyError, AttributeError, IndexError, sqlite3.Error) as e:
+        detail = " ".join(str(e).split())[:300]
+        raise StoreError(
+            f"{pa} and {pb}: their content cannot be merged ({type(e).__name__}: {detail}); "
+            "nothing was written"
+        ) from None
     return MergeResult(dst, tuple(plan.conflicts), *plan.counts)
 
 
@@ -144,7 +120,7 @@ def _survey_id(s: Side) -> str:
 
 
 # ------------------------------------------------------------------------- the plan
-def plan_merge(sa: Side, sb: Side) -> _Plan:
+def plan_merge(sa: Side, sb: Side) -> Plan:
     """Decide the merged entries, header, history and conflicts of two read stores
     (``sa`` and ``sb`` are changed: renames are made in them)."""
     n = 0
@@ -188,12 +164,12 @@ def plan_merge(sa: Side, sb: Side) -> _Plan:
         len(own_a),
         len(own_b),
     )
-    return _Plan(entities, header, sa.changes[:n] + merged, conflicts, n, counts)
+    return Plan(entities, header, sa.changes[:n] + merged, conflicts, n, counts)
 
 
 def _carry_renames(sa: Side, sb: Side, post_a: list[Change], post_b: list[Change]) -> None:
     """An entry renamed by an earlier merge keeps its new id in this one."""
-    done = {(r[7], r[5]) for r in sa.conflicts + sb.conflicts if r[1] == "renamed"}
+    done = {(r[7], r[9]) for r in sa.conflicts + sb.conflicts if r[1] == "renamed"}
     for uid, new in sorted(done):
         for side, post in ((sa, post_a), (sb, post_b)):
             e = side.entities.get(uid)
@@ -404,95 +380,6 @@ def _sequence(entities: list[ERow], sa: Side, n: int, merged: list[Change]) -> l
     out = [e if e.key() in start else e._replace(seq=top + 1 + k) for k, e in enumerate(first)]
     top = max((e.seq for e in out), default=0)
     return out + [e._replace(seq=top + 1 + k) for k, e in enumerate(rest)]
-
-
-# ------------------------------------------------------------------------- writing
-def _write(tmp: Path, sa: Side, sb: Side, plan: _Plan, at: str, device: str) -> None:
-    conn = sqlite3.connect(str(tmp), isolation_level=None)
-    try:
-        conn.execute("PRAGMA journal_mode=WAL")
-        conn.execute("PRAGMA synchronous=FULL")
-        conn.execute("BEGIN IMMEDIATE")
-        for stmt in V4_SCHEMA.split(";"):
-            if stmt.strip():
-                conn.execute(stmt)
-        meta = {
-            **{k: v for k, v in sorted(sb.meta.items())},
-            **{k: v for k, v in sorted(sa.meta.items())},
-        }
-        meta["note"] = min(sa.meta.get("note", '""'), sb.meta.get("note", '""'))
-        meta["created"] = min(sa.meta["created"], sb.meta["created"])
-        meta["survey"] = json.dumps(plan.header)
-        meta["merged"] = json.dumps({"at": at, "device": device, "conflicts": len(plan.conflicts)})
-        conn.executemany("INSERT INTO meta(key, value) VALUES (?, ?)", sorted(meta.items()))
-        conn.executemany(
-            "INSERT INTO entity(kind, member, station, id, seq, data, deleted, uid)"
-            " VALUES (?, ?, ?, ?, ?, ?, ?, ?)",
-            [(*e[:5], json.dumps(e.data), e.deleted, e.uid) for e in plan.entities],
-        )
-        conn.executemany(
-            "INSERT INTO history(id, change, at, who, device, action, kind, member, station,"
-            " entity, field, old, new, undone, undoes) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?,"
-            " ?, ?, ?, ?)",
-            _history_rows(sa, sb, plan),
-        )
-        earlier = list(dict.fromkeys(sa.conflicts + sb.conflicts))
-        now = [
-            (at, *(getattr(c, f) for f in Conflict.__dataclass_fields__)) for c in plan.conflicts
-        ]
-        conn.executemany(
-            "INSERT INTO conflict(merged, what, kind, member, station, entity, field, uid, kept,"
-            " other, kept_at, kept_device, other_at, other_device, note) VALUES (?, ?, ?, ?, ?,"
-            " ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)",
-            sorted(earlier) + now,
-        )
-        conn.execute(f"PRAGMA user_version = {CURRENT}")
-        conn.execute("COMMIT")
-    finally:
-        conn.close()
-
-
-def _history_rows(sa: Side, sb: Side, plan: _Plan) -> list[tuple]:
-    """Every history row: the common start as it was, then the merged changes renumbered
-    (an undo names the new number of the change it reverted; undone when either store
-    says so)."""
-    n = plan.prefix
-    start_undone = {r.id for s in (sa, sb) for c in s.changes[:n] for r in c.rows if r.undone}
-    rows: list[tuple] = []
-    for c in sa.changes[:n]:
-        rows += [(*r[:13], int(r.id in start_undone), r.undoes) for r in c.rows]
-    last_change = sa.changes[n - 1].number if n else 0
-    last_id = max((r[0] for r in rows), default=0)
-    number: dict[tuple[str, int], int] = {}
-    keys_to_new: dict[tuple, int] = {}
-    for k, c in enumerate(plan.changes[n:], start=1):
-        keys_to_new[c.key()] = last_change + k
-    for s, tag in ((sa, "a"), (sb, "b")):
-        for c in s.changes[n:]:
-            number[(tag, c.number)] = keys_to_new.get(c.key(), 0)
-    undone_keys = {c.key() for s in (sa, sb) for c in s.changes[n:] if c.rows[0].undone}
-    in_a = {id(c) for c in sa.changes}
-    side_of = {c.key(): ("a" if id(c) in in_a else "b") for c in plan.changes[n:]}
-    for c in plan.changes[n:]:
-        new_c = keys_to_new[c.key()]
-        tag = side_of[c.key()]
-        for r in c.rows:
-            last_id += 1
-            undoes = r.undoes
-            if undoes is not None and undoes > last_change:
-                undoes = number.get((tag, undoes), undoes)
-            rows.append((last_id, new_c, *r[2:13], int(c.key() in undone_keys), undoes))
-    # a change of the common start undone later on one device is undone in the merge
-    return rows
-
-
-def _verify(tmp: Path) -> None:
-    """The new store opens as a store and reads as a survey (else nothing is written)."""
-    from core.survey.document import store_content
-    from core.survey.store import FieldStore
-
-    with FieldStore.open(tmp, device="merge-check") as st, store_content(tmp):
-        Survey.model_validate(st.to_survey().document())
 
 
 __all__ = ["Conflict", "ERow", "HRow", "MergeError", "MergeResult", "merge_stores", "plan_merge"]

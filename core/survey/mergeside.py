@@ -223,6 +223,52 @@ def _read(conn: sqlite3.Connection, p: Path) -> Side:
     return Side(p, ver, meta, entities, changes, conflicts)
 
 
+@dataclass(frozen=True)
+class Conflict:
+    """One decision of a merge. ``what``: "value", "renamed" or "withdrawn"; ``kept`` and
+    ``other`` the values (JSON text) or ids; the times and devices of both sides."""
+
+    what: str
+    kind: str
+    member: str
+    station: str
+    entity: str
+    field: str
+    uid: str
+    kept: str | None
+    other: str | None
+    kept_at: str
+    kept_device: str
+    other_at: str
+    other_device: str
+    note: str
+
+    def line(self) -> str:
+        place = " / ".join(
+            x
+            for x in (
+                self.member and f"member {self.member}",
+                self.station and f"station {self.station}",
+                f"{self.kind} {self.entity}".strip(),
+            )
+            if x
+        )
+        return f"{self.what}: {place}: {self.note}"
+
+
+@dataclass
+class Plan:
+    """What a merge decided: the entries, the header, the history, the conflicts, the
+    number of changes of the common start, and the counts of :class:`MergeResult`."""
+
+    entities: list[ERow]
+    header: dict
+    changes: list[Change]
+    conflicts: list[Conflict]
+    prefix: int
+    counts: tuple[int, int, int, int, int]
+
+
 # --------------------------------------------------------------------- renames in a side
 def _load(text: str | None) -> Any:
     return None if text is None else json.loads(text)
