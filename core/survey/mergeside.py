@@ -250,6 +250,7 @@ class Conflict:
                 self.member and f"member {self.member}",
                 self.station and f"station {self.station}",
                 f"{self.kind} {self.entity}".strip(),
+                self.field if self.what == "value" else "",
             )
             if x
         )

@@ -324,6 +324,17 @@ class FieldStore(StoreOps, UndoOps):
             for r in rows
         ]
 
+    def conflicts(self) -> list[dict]:
+        """What merges of this store decided (:mod:`core.survey.merge`), oldest first: each
+        a dict of ``merged``, ``what`` (value, renamed, withdrawn), ``kind``, ``member``,
+        ``station``, ``entity``, ``field``, ``kept``, ``other`` and ``note``."""
+        cols = ("merged", "what", "kind", "member", "station", "entity", "field", "kept")
+        with self._lock:
+            rows = self._conn.execute(
+                f"SELECT {', '.join(cols)}, other, note FROM conflict ORDER BY id"
+            ).fetchall()
+        return [dict(zip((*cols, "other", "note"), r, strict=True)) for r in rows]
+
     def header(self) -> dict:
         with self._lock:
             return json.loads(self._meta("survey"))

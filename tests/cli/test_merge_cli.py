@@ -19,7 +19,7 @@ def test_merge_prints_the_conflicts_and_writes_a_new_store(tmp_path, capsys):
     out = tmp_path / "c.asf"
     assert main(["merge", str(a), str(b), "-o", str(out)]) == 0
     text = capsys.readouterr().out
-    assert "value: member G1 / station S1 / reading r1: both devices changed it" in text
+    assert "value: member G1 / station S1 / reading r1 / value: both devices changed it" in text
     assert "renamed: member G1 / station S4: both devices made station 'S4'" in text
     assert "is now 'S4-2'" in text
     assert f"into {out}: 5 entries in both, 1 only in {a}, 1 only in {b}" in text
