@@ -45,4 +45,11 @@ def handler(args: argparse.Namespace) -> int:
         f"{res.changes_a} + {res.changes_b} changes since the common start; "
         f"{len(res.conflicts)} conflict(s)"
     )
+    if res.errors:
+        print(
+            f"the merged survey has {len(res.errors)} error(s) to correct "
+            f"(asfound validate {res.output} lists them):"
+        )
+        for e in res.errors[:SHOWN]:
+            print(f"  {e}")
     return 0

@@ -65,7 +65,9 @@ _NUMBERED = re.compile(r"^(.*?)(\d+)$")
 
 @dataclass(frozen=True)
 class MergeResult:
-    """What a merge wrote: the output, the conflicts, how many entries came from where."""
+    """What a merge wrote: the output, the conflicts, how many entries came from where,
+    how many changes each store made after the common start, and the errors of meaning of
+    the merged survey (the store is written all the same: nothing is lost)."""
 
     output: Path
     conflicts: tuple[Conflict, ...]
@@ -74,6 +76,7 @@ class MergeResult:
     both: int
     changes_a: int
     changes_b: int
+    errors: tuple[str, ...] = ()
 
 
 def merge_stores(
@@ -103,7 +106,7 @@ def merge_stores(
         plan = plan_merge(sa, sb)
         with atomic_output(dst, replace=False) as tmp:
             write_plan(tmp, sa, sb, plan, at, dev)
-            verify(tmp)
+            problems = verify(tmp)
     except AsfoundError:
         raise
     except (ValueError, TypeError, KeyError, AttributeError, IndexError, sqlite3.Error) as e:
@@ -112,7 +115,7 @@ def merge_stores(
             f"{pa} and {pb}: their content cannot be merged ({type(e).__name__}: {detail}); "
             "nothing was written"
         ) from None
-    return MergeResult(dst, tuple(plan.conflicts), *plan.counts)
+    return MergeResult(dst, tuple(plan.conflicts), *plan.counts, problems)
 
 
 def _survey_id(s: Side) -> str:

@@ -93,10 +93,16 @@ def _history_rows(sa: Side, sb: Side, plan: Plan) -> list[tuple]:
     return rows
 
 
-def verify(tmp: Path) -> None:
-    """The new store opens as a store and reads as a survey (else nothing is written)."""
+def verify(tmp: Path) -> tuple[str, ...]:
+    """Check the new store: it opens as a store and reads as a survey (else nothing is
+    written). Returns the errors of meaning the merged survey has (entries of the two
+    devices that do not agree, for the inspector to correct; the store is kept)."""
     from core.survey.document import store_content
+    from core.survey.problems import errors
     from core.survey.store import FieldStore
+    from core.survey.validate import check_document
 
     with FieldStore.open(tmp, device="merge-check") as st, store_content(tmp):
-        Survey.model_validate(st.to_survey().document())
+        doc = st.to_survey().document()
+        Survey.model_validate(doc)
+        return tuple(str(e) for e in errors(check_document(doc, str(tmp))[1]))

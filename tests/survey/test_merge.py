@@ -232,3 +232,17 @@ def test_a_damaged_input_is_refused_naming_it(tmp_path):
     data[2 * 4096 : 2 * 4096 + 100] = b"\xa5" * 100
     b.write_bytes(bytes(data))
     _unchanged(tmp_path, [a, b], tmp_path / "c.asf", StoreError, r"b\.asf: .*damaged")
+
+
+def test_entries_that_disagree_after_the_merge_are_kept_and_named(tmp_path):
+    """One device shortens the member, the other adds a station beyond the new end: both
+    are kept, and the merge names the error for the inspector to correct."""
+    a, b, sa, sb = _two(tmp_path)
+    sa.update_member("G1", {"span": {"value": 6.0, "unit": "m"}}, "ann")
+    sb.add_station("G1", {"id": "S9", "position": 9.0}, "bob")
+    sa.close()
+    sb.close()
+    res = merge_stores(a, b, tmp_path / "c.asf")
+    assert len(res.errors) == 1 and "S9" in res.errors[0] and "outside the member" in res.errors[0]
+    with FieldStore.open(res.output) as s:
+        assert [x.id for x in s.to_survey().members[0].stations] == ["S1", "S9"]
