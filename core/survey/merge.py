@@ -313,8 +313,6 @@ def _merge_entry(ea: ERow, eb: ERow, touch_a, touch_b, conflicts) -> ERow:
     deleted = ea.deleted
     if ea.deleted != eb.deleted:
         deleted = _pick(key, "*", ea.deleted, eb.deleted, touch_a, touch_b, conflicts, place)
-        if conflicts and conflicts[-1].field == "*" and conflicts[-1].uid == ea.uid:
-            conflicts.pop()  # listed as "withdrawn" below, in words
     return ea._replace(data=data, deleted=int(deleted))
 
 
@@ -336,8 +334,8 @@ def _withdrawn(entities, own_a, own_b, touch_a, touch_b, conflicts) -> None:
             continue
         for mine, other, o_name in ((touch_a, touch_b, "b"), (touch_b, touch_a, "a")):
             hit = mine.get((*e.key(), "*"))
-            if hit is None:
-                continue
+            if hit is None or other.get((*e.key(), "*")) is not None:
+                continue  # not withdrawn here, or both devices acted on its withdrawal
             later = other.get((*e.key(), None))
             under = [t for t in adds[o_name] if _is_under(t, e)]
             if later is None and not under:

@@ -8,6 +8,7 @@ unchanged copy of itself is unchanged, and of two changes of one value the later
 from __future__ import annotations
 
 import hashlib
+import os
 import json
 import tempfile
 from collections import Counter
@@ -54,7 +55,7 @@ def _what(row) -> tuple:
     return (row[2], row[3], row[4], row[5], row[6], row[10], row[12] is None)
 
 
-@settings(max_examples=20, deadline=None)
+@settings(max_examples=int(os.environ.get("ASFOUND_MERGE_EXAMPLES", "20")), deadline=None)
 @given(steps)
 def test_merge_keeps_everything_is_symmetric_and_the_later_change_wins(plan):
     with tempfile.TemporaryDirectory() as tmp:
