@@ -206,12 +206,14 @@ def _fresh(kind: str, ident: str, used: set[str]) -> str:
     return f"{prefix}{k}"
 
 
-def _added_at(side: Side, post: list[Change], e: ERow) -> tuple:
+def _added(post: list[Change]) -> dict[tuple, tuple]:
+    """The order of the change that added each entry (by its place and id)."""
+    out: dict[tuple, tuple] = {}
     for c in post:
         for r in c.rows:
-            if r.action == "add" and r.target() == e.key():
-                return c.order()
-    return ("\uffff", e.uid)
+            if r.action == "add":
+                out.setdefault(r.target(), c.order())
+    return out
 
 
 def _rename_clashes(
@@ -226,9 +228,10 @@ def _rename_clashes(
             o = by_key_b.get(e.key())
             if lvl == level and o is not None and o.uid != e.uid:
                 pairs.append((e, o))
+        added_a, added_b = _added(post_a), _added(post_b)
         for ea, eb in sorted(pairs, key=lambda p: p[0].key()):
-            ta = (*_added_at(sa, post_a, ea), ea.uid)
-            tb = (*_added_at(sb, post_b, eb), eb.uid)
+            ta = (*added_a.get(ea.key(), ("\uffff", ea.uid)), ea.uid)
+            tb = (*added_b.get(eb.key(), ("\uffff", eb.uid)), eb.uid)
             if ta <= tb:
                 side, post, e, t, k_e, kt = sb, post_b, eb, tb, ea, ta
             else:

@@ -80,16 +80,27 @@ class Change:
 
     number: int
     rows: list[HRow]
+    _cache: dict = field(default_factory=dict, repr=False, compare=False)
 
     def key(self) -> tuple:
         """The identity of a change in any copy: its device, person and rows' content."""
-        return (self.rows[0].device, self.rows[0].who, tuple(r.body() for r in self.rows))
+        if "key" not in self._cache:
+            first = self.rows[0]
+            self._cache["key"] = (first.device, first.who, tuple(r.body() for r in self.rows))
+        return self._cache["key"]
 
     def order(self) -> tuple:
         """Where the change goes in a merged history: by time, then device id, then the
         person and the content (the same whichever store is read first)."""
-        first = self.rows[0]
-        return (first.at, first.device, first.who, json.dumps(self.key()[2]))
+        if "order" not in self._cache:
+            first = self.rows[0]
+            body = json.dumps(self.key()[2])
+            self._cache["order"] = (first.at, first.device, first.who, body)
+        return self._cache["order"]
+
+    def set_rows(self, rows: list[HRow]) -> None:
+        self.rows = rows
+        self._cache.clear()
 
     def same(self, other: Change) -> bool:
         return self.number == other.number and [(r.id, r.body(), r.undoes) for r in self.rows] == [
@@ -297,7 +308,9 @@ def rename(side: Side, uid: str, new_id: str, changes: list[Change]) -> None:
         elif e.kind == "band" and _on_band(x, e, old):
             side.entities[u] = x._replace(data={**x.data, "region": new_id})
     for c in changes:
-        c.rows = [_renamed_row(r, e, old, new_id) for r in c.rows]
+        rows = [_renamed_row(r, e, old, new_id) for r in c.rows]
+        if rows != c.rows:
+            c.set_rows(rows)
 
 
 def _on_band(x: ERow, band: ERow, old: str) -> bool:
