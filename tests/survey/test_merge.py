@@ -264,3 +264,31 @@ def test_names_with_uri_characters_and_a_store_open_in_the_app(tmp_path):
         live.add_station("G1", {"id": "S6", "position": 6.0}, "bob")  # still writable
     finally:
         live.close()
+
+
+def test_two_bands_with_one_id_keep_their_own_readings(tmp_path):
+    """Both devices draw band ``b1`` at S1 and read on it: the later band is renamed and
+    the readings on it follow (their region), in the entries and in the history."""
+    a, b, sa, sb = _two(tmp_path)
+    for s, who, lo, v in ((sa, "ann", 100, 6.2), (sb, "bob", 500, 5.9)):
+        with s.batch(who):
+            s.add_band("G1", "S1", {"id": "b1", "part": "web", "lo": lo, "hi": lo + 100}, who)
+            s.add_reading(
+                "G1", "S1", {"part": "web", "region": "b1", "value": v, "unit": "mm"}, who
+            )
+        s.close()
+    res = merge_stores(a, b, tmp_path / "c.asf")
+    assert sorted((x.what, x.kind, x.kept, x.other) for x in res.conflicts) == [
+        ("renamed", "band", "b1", "b2"),
+        ("renamed", "reading", "r4", "r5"),
+    ]
+    assert res.errors == ()
+    with FieldStore.open(res.output) as c:
+        st = c.station("G1", "S1")
+        assert {x.id: (x.lo, x.hi) for x in st.bands} == {"b1": (100, 200), "b2": (500, 600)}
+        assert {x.id: (x.region, x.value) for x in st.readings if x.region} == {
+            "r4": ("b1", 6.2),
+            "r5": ("b2", 5.9),
+        }
+        added = {h.entity: h.new for h in c.history() if h.action == "add" and h.kind != "survey"}
+        assert added["b2"]["id"] == "b2" and added["r5"]["region"] == "b2"
