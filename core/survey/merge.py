@@ -171,13 +171,23 @@ def plan_merge(sa: Side, sb: Side) -> Plan:
 
 
 def _carry_renames(sa: Side, sb: Side, post_a: list[Change], post_b: list[Change]) -> None:
-    """An entry renamed by an earlier merge keeps its new id in this one."""
-    done = {(r[7], r[9]) for r in sa.conflicts + sb.conflicts if r[1] == "renamed"}
-    for uid, new in sorted(done):
-        for side, post in ((sa, post_a), (sb, post_b)):
-            e = side.entities.get(uid)
-            if e is not None and e.id != new:
-                rename(side, uid, new, post)
+    """An entry both stores have under two ids: the id an earlier merge gave it (its latest
+    rename in either store's conflict table), else the smaller id (parents first)."""
+    latest: dict[str, str] = {}
+    for r in sorted(sa.conflicts + sb.conflicts, key=lambda r: tuple(map(str, r))):
+        if r[1] == "renamed":
+            latest[r[7]] = r[9]
+    for level in ("member", "station", "entry"):
+        for uid in sorted(set(sa.entities) & set(sb.entities)):
+            ea, eb = sa.entities[uid], sb.entities[uid]
+            lvl = ea.kind if ea.kind in _PARENT else "entry"
+            if lvl != level or ea.id == eb.id:
+                continue
+            new = latest.get(uid) if latest.get(uid) in (ea.id, eb.id) else min(ea.id, eb.id)
+            if ea.id != new:
+                rename(sa, uid, new, post_a)
+            else:
+                rename(sb, uid, new, post_b)
 
 
 def _touches(changes: list[Change]) -> dict[tuple, tuple[tuple, str]]:

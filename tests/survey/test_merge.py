@@ -122,6 +122,7 @@ def test_merging_the_merge_again_with_a_device_that_went_on(tmp_path):
         adds = [h for h in s.history() if h.action == "add" and h.kind == "station"]
         assert len(adds) == 3
     assert [x.what for x in d.conflicts] == []
+    assert dump(merge_stores(b, c, tmp_path / "e.asf").output)[:2] == dump(d.output)[:2]
 
 
 def test_inputs_of_older_layouts_are_read_and_never_migrated(tmp_path):
