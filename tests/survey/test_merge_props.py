@@ -2,7 +2,9 @@
 
 Property-based invariants of our own merge rule (no outside source applies): nothing of
 either store is lost, the order of the inputs does not matter, a store merged with an
-unchanged copy of itself is unchanged, and of two changes of one value the later is current.
+unchanged copy of itself is unchanged, of two changes of one value the later is current,
+and a device that went on after a merge merges again without doubling anything.
+``ASFOUND_MERGE_EXAMPLES`` sets the examples of the larger tests for a longer run by hand.
 """
 
 from __future__ import annotations
@@ -114,3 +116,23 @@ def test_merging_with_an_unchanged_copy_changes_nothing(plan):
         assert res.conflicts == () and res.changes_a == res.changes_b == 0
         assert dump(out)[:2] == dump(a)[:2]
         assert conflicts(out) == conflicts(a)
+
+
+@settings(max_examples=int(os.environ.get("ASFOUND_MERGE_EXAMPLES", "8")), deadline=None)
+@given(steps, st.lists(ops, max_size=6))
+def test_a_device_that_went_on_after_a_merge_merges_again_without_doubling(plan, more):
+    with tempfile.TemporaryDirectory() as tmp:
+        folder = Path(tmp)
+        a, b = _run(folder, plan)
+        c = merge_stores(a, b, folder / "c.asf").output
+        before = len(dump(b)[1])
+        with FieldStore.open(b, device=DEVICES[1]) as s:
+            for op in more:
+                apply(s, WHO[1], op)
+        eb, hb, _ = dump(b)
+        ec, hc, _ = dump(c)
+        d = merge_stores(c, b, folder / "d.asf").output
+        ed, hd, _ = dump(d)
+        assert len(hd) == len(hc) + len(hb) - before  # B's new rows, nothing twice
+        assert {e[0] for e in ed} == {e[0] for e in ec} | {e[0] for e in eb}
+        assert dump(merge_stores(b, c, folder / "e.asf").output)[:2] == (ed, hd)
