@@ -19,6 +19,8 @@ from core.survey.device import short
 
 #: how many of the newest history entries are listed
 HISTORY_ROWS = 15
+#: how many decisions of a merge are listed (the newest)
+MERGE_ROWS = 12
 #: how many corrections, withdrawals and undos of entries are listed (the newest)
 CORRECTION_ROWS = 60
 #: the kinds of entry the inspector corrects (old values shown in their own table)
@@ -103,6 +105,18 @@ def history(st: Styles, src: Source, system: str, width: float) -> list:
             st.body,
         )
     )
+    if src.conflicts:
+        shown = src.conflicts[-MERGE_ROWS:]
+        more = f" (the newest {len(shown)})" if len(shown) < len(src.conflicts) else ""
+        out.append(
+            Paragraph(
+                f"This store was merged from two devices' stores: {len(src.conflicts)} "
+                f"decision(s) of the merge to review{more} (both values are in the history; "
+                "the later change is current):",
+                st.body,
+            )
+        )
+        out += [Paragraph(esc(line), st.body) for line in shown]
     fixes = [e for e in h if e.kind in CORRECTABLE and e.action in ("update", "delete", "undo")]
     if fixes:
         shown = fixes[-CORRECTION_ROWS:]

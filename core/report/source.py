@@ -20,6 +20,8 @@ class Source:
         checksum: SHA-256 of the input's bytes, first 16 hex digits.
         is_store: True for a field store (SQLite), False for a survey file.
         history: the store's edit history, oldest first (empty for a file).
+        conflicts: what merges of the store decided, one line each (see
+            :mod:`core.survey.merge`), for the engineer's review.
     """
 
     path: str
@@ -27,6 +29,7 @@ class Source:
     checksum: str
     is_store: bool
     history: tuple[HistoryEntry, ...] = ()
+    conflicts: tuple[str, ...] = ()
 
 
 def checksum(data: bytes) -> str:
@@ -48,7 +51,18 @@ def read_source(path: str | Path) -> tuple[Survey, list[Problem], Source]:
     store = is_store_file(p)
     survey, problems = load_survey(p)
     history: tuple[HistoryEntry, ...] = ()
+    merged: tuple[str, ...] = ()
     if store:
         with FieldStore.open(p) as fs, store_content(p):
             history = tuple(fs.history())
-    return survey, list(problems), Source(str(path), p.name, checksum(data), store, history)
+            merged = tuple(conflict_line(c) for c in fs.conflicts())
+    src = Source(str(path), p.name, checksum(data), store, history, merged)
+    return survey, list(problems), src
+
+
+def conflict_line(c: dict) -> str:
+    """One decision of a merge in words (merge time, what, where, the note)."""
+    place = " / ".join(x for x in (c["member"], c["station"], f"{c['kind']} {c['entity']}") if x)
+    if c["what"] == "value":
+        place += f" / {c['field']}"
+    return f"{c['merged']}: {c['what']} at {place.strip()}: {c['note']}"

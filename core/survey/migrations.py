@@ -20,7 +20,7 @@ import sqlite3
 
 from core.errors import StoreError
 
-CURRENT = 3
+CURRENT = 4
 STORE_FORMAT = "asfound.store"
 #: the device of every history row written before layout 3 (no device can undo those)
 DEVICE_BEFORE_V3 = "unknown-before-layout-3"
@@ -66,6 +66,18 @@ CREATE TABLE history(
 CREATE INDEX history_change ON history(change);
 CREATE INDEX history_author ON history(who, device, undone, change);
 """
+
+#: what layout 4 adds to layout 3
+V4_CONFLICT = """
+CREATE TABLE conflict(
+  id INTEGER PRIMARY KEY AUTOINCREMENT, merged TEXT NOT NULL, what TEXT NOT NULL,
+  kind TEXT NOT NULL, member TEXT NOT NULL, station TEXT NOT NULL, entity TEXT NOT NULL,
+  field TEXT NOT NULL, uid TEXT NOT NULL, kept TEXT, other TEXT, kept_at TEXT NOT NULL,
+  kept_device TEXT NOT NULL, other_at TEXT NOT NULL, other_device TEXT NOT NULL,
+  note TEXT NOT NULL)
+"""
+
+V4_SCHEMA = V3_SCHEMA + V4_CONFLICT + ";\n"
 
 
 def split_value(text: str) -> tuple[float, str]:
@@ -154,7 +166,28 @@ def _v2_to_v3(conn: sqlite3.Connection, at: str, device: str) -> None:
     )
 
 
-MIGRATIONS = {1: _v1_to_v2, 2: _v2_to_v3}
+def migrated_origin(created: str) -> str:
+    """The identity of a store made before layout 4 (the same in every copy of it)."""
+    return hashlib.sha256(f"origin\x1f{created}".encode()).hexdigest()[:32]
+
+
+def _v3_to_v4(conn: sqlite3.Connection, at: str, device: str) -> None:
+    row = conn.execute("SELECT value FROM meta WHERE key = 'created'").fetchone()
+    conn.execute(
+        "INSERT OR IGNORE INTO meta(key, value) VALUES ('origin', ?)",
+        (migrated_origin(row[0] if row else ""),),
+    )
+    conn.execute(V4_CONFLICT)
+    nxt = conn.execute("SELECT COALESCE(MAX(change), 0) + 1 FROM history").fetchone()[0]
+    conn.execute(
+        "INSERT INTO history(change, at, who, device, action, kind, member, station, entity,"
+        " field, old, new) VALUES (?, ?, 'asfound', ?, 'migrate', 'store', '', '', '',"
+        " 'user_version', '3', '4')",
+        (nxt, at, device),
+    )
+
+
+MIGRATIONS = {1: _v1_to_v2, 2: _v2_to_v3, 3: _v3_to_v4}
 
 
 def migrate(conn: sqlite3.Connection, version: int, at: str, device: str) -> None:

@@ -25,6 +25,7 @@ import datetime as _dt
 import json
 import sqlite3
 import threading
+import uuid
 from collections.abc import Iterator
 from contextlib import contextmanager, suppress
 from dataclasses import dataclass
@@ -34,7 +35,7 @@ from typing import Any
 from core.definition import SectionDefinition
 from core.errors import InputError, StoreError
 from core.survey.device import check_device, this_device
-from core.survey.migrations import CURRENT, STORE_FORMAT, V3_SCHEMA, migrate
+from core.survey.migrations import CURRENT, STORE_FORMAT, V4_SCHEMA, migrate
 from core.survey.model import VERSION, Member, Station, Survey, SurveyHeader
 from core.survey.problems import Problem
 from core.survey.storeops import StoreOps, _validated
@@ -139,7 +140,7 @@ class FieldStore(StoreOps, UndoOps):
             conn.execute("PRAGMA journal_mode=WAL")
             conn.execute("PRAGMA synchronous=FULL")
             conn.execute("BEGIN IMMEDIATE")
-            for stmt in V3_SCHEMA.split(";"):
+            for stmt in V4_SCHEMA.split(";"):
                 if stmt.strip():
                     conn.execute(stmt)
             conn.executemany(
@@ -147,6 +148,7 @@ class FieldStore(StoreOps, UndoOps):
                 [
                     ("format", STORE_FORMAT),
                     ("created", _now()),
+                    ("origin", uuid.uuid4().hex),
                     ("survey", json.dumps(hdr.model_dump(mode="json"))),
                     ("note", json.dumps(note)),
                 ],
@@ -321,6 +323,17 @@ class FieldStore(StoreOps, UndoOps):
             )
             for r in rows
         ]
+
+    def conflicts(self) -> list[dict]:
+        """What merges of this store decided (:mod:`core.survey.merge`), oldest first: each
+        a dict of ``merged``, ``what`` (value, renamed, withdrawn), ``kind``, ``member``,
+        ``station``, ``entity``, ``field``, ``kept``, ``other`` and ``note``."""
+        cols = ("merged", "what", "kind", "member", "station", "entity", "field", "kept")
+        with self._lock:
+            rows = self._conn.execute(
+                f"SELECT {', '.join(cols)}, other, note FROM conflict ORDER BY id"
+            ).fetchall()
+        return [dict(zip((*cols, "other", "note"), r, strict=True)) for r in rows]
 
     def header(self) -> dict:
         with self._lock:

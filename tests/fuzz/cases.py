@@ -8,7 +8,8 @@ into the files and the commands the worker runs:
 * ``section``: the sample section description, mutated, or a random one
   (:mod:`tests.fuzz.sections`); ``asfound section`` in both unit systems and as JSON;
 * ``store``: a field store of the SI sample with an entry mutated or its bytes damaged
-  (:mod:`tests.fuzz.stores`); validate, report (which assesses) and export.
+  (:mod:`tests.fuzz.stores`); validate, report (which assesses), export, and merge with
+  the undamaged store (the same survey: a copy of one start).
 """
 
 from __future__ import annotations
@@ -52,6 +53,7 @@ STORE_COMMANDS = [
     ["validate", "{dir}/in.asf"],
     ["report", "{dir}/in.asf", "-o", "{dir}/out.pdf"],
     ["export", "{dir}/in.asf", "-o", "{dir}/out.json"],
+    ["merge", "{dir}/in.asf", "{dir}/base.asf", "-o", "{dir}/merged.asf"],
 ]
 KINDS = ("survey", "section", "store")
 
@@ -89,7 +91,8 @@ def job(case: tuple) -> tuple[dict[str, bytes], list[list[str]]]:
         data = arg if name == "random" else apply(sample(name), arg)
         return {"in.json": data}, SECTION_COMMANDS
     row, muts, damage = arg
-    return {"in.asf": mutate_store(sample_store(), row, muts, damage)}, STORE_COMMANDS
+    files = {"in.asf": mutate_store(sample_store(), row, muts, damage), "base.asf": sample_store()}
+    return files, STORE_COMMANDS
 
 
 def describe(case: tuple) -> str:

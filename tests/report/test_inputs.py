@@ -79,3 +79,28 @@ def test_folder_continues_past_bad_files_and_names_them(tmp_path, capsys):
     text = " ".join(pdf_pages(out / "d-store.pdf"))
     assert "Edit history" in text and "Field store d-store.db" in text
     assert "test inspector" in text
+
+
+def test_a_merged_store_lists_the_merge_decisions(tmp_path):
+    """A store merged from two devices (``asfound merge``): the history section flags
+    each decision of the merge for the engineer's review."""
+    import shutil
+
+    from core.survey import FieldStore
+    from core.survey.merge import merge_stores
+    from tests.survey.helpers import document, write
+
+    a, b = tmp_path / "a.asf", tmp_path / "b.asf"
+    import_survey(write(tmp_path / "small.json", document()), a, who="office")
+    shutil.copy(a, b)
+    m = None
+    for path, dev, who, v in ((a, "tablet-aa", "ann", 1.0), (b, "tablet-bb", "bob", 2.0)):
+        with FieldStore.open(path, device=dev) as s:
+            m = s.to_survey().members[0]
+            st = m.stations[0]
+            s.set_note(m.id, st.id, f"checked twice ({v:g})", who)
+    merged = merge_stores(a, b, tmp_path / "c.asf").output
+    rep = build_report(merged, tmp_path / "c.pdf")
+    text = " ".join(pdf_pages(rep.path))
+    assert "merged from two devices' stores: 1 decision(s) of the merge to review" in text
+    assert f"value at {m.id} / station {m.stations[0].id} / notes: both devices changed it" in text

@@ -65,7 +65,7 @@ def test_split_value_of_layout_v1():
         split_value("mm 9")
 
 
-def test_migration_from_v1_to_v3(tmp_path):
+def test_migration_from_v1_to_current(tmp_path):
     p = tmp_path / "old.asf"
     doc = _v1_store(p)
     conn = sqlite3.connect(p)
@@ -77,16 +77,16 @@ def test_migration_from_v1_to_v3(tmp_path):
         hist = s.history()
         assert [h.change for h in hist[:5]] == [h.id for h in hist[:5]]
         steps = [(h.old, h.new) for h in hist if h.action == "migrate"]
-        assert steps == [(1, 2), (2, 3)]
+        assert steps == [(1, 2), (2, 3), (3, 4)]
         # rows written before layout 3 say so, and no device can undo them
         assert {h.device for h in hist[:5]} == {DEVICE_BEFORE_V3}
         assert s.undo_last("ann") == []
-        # the migrated store works as a version 3 store: soft delete and undo
+        # the migrated store works as a current store: soft delete and undo
         s.delete_reading("G1", "S1", "r2", "bob")
         s.undo_last("bob")
         assert len(s.to_survey().members[0].stations[0].readings) == 3
     conn = sqlite3.connect(p)
-    assert conn.execute("PRAGMA user_version").fetchone()[0] == CURRENT == 3
+    assert conn.execute("PRAGMA user_version").fetchone()[0] == CURRENT == 4
     conn.close()
     backup = tmp_path / "old.asf.v1.bak"
     conn = sqlite3.connect(backup)  # the v1 content kept as it was

@@ -243,12 +243,8 @@ def test_migration_v2_to_v3_keeps_everything_and_states_the_device(tmp_path):
     with FieldStore.open(p, device="tablet-A") as s:
         hist = s.history()
         assert hist[0].device == DEVICE_BEFORE_V3 and hist[0].who == "ann"
-        assert (hist[-1].action, hist[-1].device, hist[-1].old, hist[-1].new) == (
-            "migrate",
-            "tablet-A",
-            2,
-            3,
-        )
+        steps = [(h.device, h.old, h.new) for h in hist if h.action == "migrate"]
+        assert steps == [("tablet-A", 2, 3), ("tablet-A", 3, 4)]
         assert s.undo_last("ann") == []  # made before devices were recorded: nobody's
         assert [m.id for m in s.to_survey().members] == ["G1"]
         s.add_station("G1", {"id": "S1", "position": 1.0}, "ann")  # works as layout 3
