@@ -1,0 +1,113 @@
+"""The trend of synthetic repeat surveys through the real engine.
+
+The synthetic series is a sample survey (invented demo data) with every reading 1.5 mm
+thinner (so that no reading is near nominal, where the cap would hide loss) and thicker by a
+known amount at earlier dates: 1.0 mm ten years before, 0.5 mm five years before, a loss of
+0.1 mm/year put in by hand.
+"""
+
+from __future__ import annotations
+
+from dataclasses import replace
+
+import pytest
+from hypothesis import HealthCheck, given, settings
+from hypothesis import strategies as st
+
+from core.assess import assess, options_from_dict
+from core.survey.model import Survey
+from core.trend import trend
+from core.trend.crossing import ALREADY, BEYOND, CROSSES
+from core.trend.project import projected_survey, values_of
+from tests.trend.helpers import doc, shifted
+
+THIN = -1.5
+
+
+def _series(tmp_path, adds=(1.0, 0.5, 0.0), dates=("2015-09-17", "2020-09-17", "2025-09-17")):
+    base = shifted(doc(), dates[-1], THIN)
+    paths, surveys = [], []
+    for k, (add, date) in enumerate(zip(adds, dates, strict=True)):
+        d = shifted(base, date, add)
+        p = tmp_path / f"s{k}.json"
+        import json
+
+        p.write_text(json.dumps(d), encoding="utf-8")
+        paths.append(str(p))
+        surveys.append(Survey.model_validate(d))
+    return paths, surveys
+
+
+def test_known_linear_rate_and_crossing_year(tmp_path):
+    paths, surveys = _series(tmp_path)
+    r = trend(paths, surveys=surveys, horizon=20.0, step_years=5.0)
+    # 1.0 mm over the ten years: 0.1 mm/year in every region read below nominal at every date
+    free = [
+        (rs, rt)
+        for rs, rt in zip(r.series.regions, r.rates, strict=True)
+        if max(rs.t) < rs.t_nominal - 1e-9 and len(rs.t) == 3
+    ]
+    assert len(free) == len(r.series.regions) > 5
+    for rs, rt in free:
+        assert rt.method == "least squares"
+        assert rt.r == pytest.approx(0.1, rel=2e-3), rs.name  # leap days move the dates
+        assert rt.se == pytest.approx(0.0, abs=1e-4)
+    # the projection 5 years ahead is the latest survey thinned by 0.5 mm, assessed: build
+    # that survey independently and compare every measure
+    opts = replace(options_from_dict({}, "test"), standard="en1993")
+    thinned = Survey.model_validate(shifted(doc(), "2030-09-17", THIN - 0.5))
+    direct = values_of(assess(thinned, opts))
+    step5 = r.steps["central"][1]
+    assert step5.dt == 5.0
+    # (at stations where no region is capped at nominal at any date, so the rate is the
+    # same 0.1 mm/year everywhere there)
+    free_ids = {id(rs) for rs, _rt in free}
+    clean = {
+        sm.station
+        for sm in r.series.stations
+        if all(id(rs) in free_ids for rs in r.series.regions if rs.station == sm.station)
+    }
+    assert clean
+    compared = 0
+    for key, (v, _ratio) in step5.values.items():
+        if key[1] in clean and v is not None and direct[key][0] is not None:
+            assert v == pytest.approx(direct[key][0], rel=1e-3), key
+            compared += 1
+    assert compared > 5
+    # a crossing within the horizon: the engine at the reported year gives the target
+    # (within the linear interpolation between runs 5 years apart)
+    crossed = [(t, c) for t in r.tracked for c in t.crossings if c.status == CROSSES and c.dt > 0.5]
+    assert crossed, "the synthetic series should cross a threshold within 20 years"
+    t, c = crossed[0]
+    proj, lost = projected_survey(
+        surveys[-1],
+        r.series.regions,
+        dict(
+            ((rs.member, rs.station, rs.key), rt)
+            for rs, rt in zip(r.series.regions, r.rates, strict=True)
+        ),
+        c.dt,
+    )
+    assert not lost
+    v = values_of(assess(proj, opts))[(t.member, t.station, t.key)][0]
+    assert v == pytest.approx(c.target.value, rel=0.05)
+    # the band of an exact line is the line itself
+    assert c.dt_early == pytest.approx(c.dt, abs=0.05) and c.dt_late == pytest.approx(
+        c.dt, abs=0.05
+    )
+
+
+@given(st.integers(1, 12))
+@settings(max_examples=3, deadline=None, suppress_health_check=list(HealthCheck))
+def test_property_no_further_loss_no_crossing(tmp_path_factory, gap):
+    """Property: a repeat survey with no further loss gives rate 0 everywhere and no
+    crossing ahead (a limit state is either already past a target or never reaches it)."""
+    tmp = tmp_path_factory.mktemp("same")
+    paths, surveys = _series(tmp, adds=(0.0, 0.0), dates=(f"{2025 - gap}-03-01", "2025-09-17"))
+    r = trend(paths, surveys=surveys, horizon=30.0, step_years=10.0)
+    assert all(rt.r == 0.0 for rt in r.rates)
+    assert set(r.steps) == {"central"}
+    for t in r.tracked:
+        assert all(v == t.at_dates[-1] for v in t.projected)
+        for c in t.crossings:
+            assert c.status in (ALREADY, BEYOND)
