@@ -48,8 +48,9 @@ def method_statement(r: TrendResult) -> list[str]:
         f"Each projected survey is assessed by the same engine and family every "
         f"{r.step:g} years up to {r.horizon:g} years ahead; the year a measure crosses a "
         "threshold is interpolated linearly between two such runs.",
-        f"A station where a projected reading would fall below {T_FLOOR:g} mm is taken out "
-        "from then on (its region would be lost); its limit states end there.",
+        f"Where a projected reading would fall below {T_FLOOR:g} mm the region would be "
+        "lost: its station's limit states end there (the region is held at that floor for "
+        "what neighbouring stations share with it, such as a web panel).",
         "Band: the crossing with every rate one standard error faster and slower "
         "(about two chances in three for normal scatter).",
         f"Stations are matched by position within {r.series.tolerance:g} mm, parts by id.",

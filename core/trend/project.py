@@ -5,9 +5,11 @@ Each region keeps the scatter of its readings: every reading of the region is sh
 the same amount, so the statistic the assessment uses (mean or minimum, capped at nominal)
 falls exactly by the projected loss; a band given by its thickness ``t`` is thinned the
 same way. Loss bands and perforations keep the extent found at the latest survey (their
-growth is not projected), rivet states and loads are those of the latest survey. A station
-where a projected reading would fall below :data:`T_FLOOR` is taken out of the projected
-survey from then on (its region would be lost; its limit states end there, with the reason).
+growth is not projected), rivet states and loads are those of the latest survey. Where a
+projected reading would fall below :data:`T_FLOOR` the region would be lost: it is held at
+that floor (the station stays in the projected survey, because its neighbours share results
+with it, e.g. the thinnest station of a web panel; taking it out would make them look
+better) and the station's own limit states end there, with the reason.
 """
 
 from __future__ import annotations
@@ -37,7 +39,7 @@ class Step:
 
     ``values[(member, station, limit state key)]`` is (measure, capacity ratio); ``end`` is
     why the projection stops here (the engine refused the projected survey), and then
-    ``values`` is empty; ``lost[(member, station)]`` why a station was taken out.
+    ``values`` is empty; ``lost[(member, station)]`` why a station's own results end.
     """
 
     dt: float
@@ -73,7 +75,7 @@ def projected_survey(
     scenario: Scenario = "central",
     policy: str = "mean",
 ) -> tuple[Survey, dict[tuple[str, str], str]]:
-    """The latest survey ``years`` ahead, and the stations taken out (a region lost).
+    """The latest survey ``years`` ahead, and the stations where a region would be lost.
 
     Args:
         latest: the latest survey (not changed).
@@ -84,15 +86,14 @@ def projected_survey(
         policy: the assessment's thickness statistic ("mean" or "minimum").
 
     Returns:
-        the projected survey, and a sentence per station taken out naming its lost region.
+        the projected survey, and a sentence per station with a lost region (held at
+        :data:`T_FLOOR` in the projected survey) naming it.
     """
     doc: dict[str, Any] = copy.deepcopy(latest.document())
     lu = latest.survey.length_unit
     members = {m["id"]: m for m in doc["members"]}
     lost: dict[tuple[str, str], str] = {}
     for rs in regions:
-        if (rs.member, rs.station) in lost:
-            continue
         rate = rates[(rs.member, rs.station, rs.key)]
         loss = rate.loss(years, scenario)
         if loss <= 0.0:
@@ -106,8 +107,8 @@ def projected_survey(
             mm = [r["value"] / from_internal(1.0, "length", r["unit"]) for r in reads]
             shift = target - _stat(mm, policy)
             if min(mm) + shift < T_FLOOR:
-                lost[(rs.member, rs.station)] = _lost(rs, years)
-                continue
+                lost.setdefault((rs.member, rs.station), _lost(rs))
+                shift = T_FLOOR - min(mm)
             for r, v in zip(reads, mm, strict=True):
                 r["value"] = from_internal(v + shift, "length", r["unit"])
             continue
@@ -116,19 +117,15 @@ def projected_survey(
         )
         if band is not None and band.get("t") is not None:
             if target < T_FLOOR:
-                lost[(rs.member, rs.station)] = _lost(rs, years)
-                continue
+                lost.setdefault((rs.member, rs.station), _lost(rs))
+                target = T_FLOOR
             band["t"] = from_internal(target, "length", lu)
-    for mid, sid in lost:
-        m = members[mid]
-        m["stations"] = [s for s in m["stations"] if s["id"] != sid]
     return Survey.model_validate(doc), lost
 
 
-def _lost(rs: RegionSeries, years: float) -> str:
+def _lost(rs: RegionSeries) -> str:
     return (
-        f"{rs.name}: a projected reading would fall below {T_FLOOR:g} mm "
-        f"{years:.1f} years after the latest survey (the region would be lost)"
+        f"{rs.name}: a projected reading would fall below {T_FLOOR:g} mm (the region would be lost)"
     )
 
 
@@ -142,8 +139,6 @@ def step(
 ) -> Step:
     """Assess the projected survey ``years`` ahead (an engine refusal ends the projection)."""
     proj, lost = projected_survey(latest, regions, rates, years, scenario, options.thickness_policy)
-    if all(not m.stations for m in proj.members):
-        return Step(years, {}, "every station would have lost a region", lost)
     try:
         a = assess(proj, options)
     except AsfoundError as e:

@@ -243,7 +243,7 @@ def _series(steps: tuple[Step, ...], key) -> tuple[list[float], list[float | Non
         gone = s.lost.get((key[0], key[1]))
         if gone:
             vals.append(None)
-            return dts, vals, gone
+            return dts, vals, f"{gone}, {s.dt:g} years after the latest survey"
         v = s.values.get(key)
         vals.append(None if v is None else v[0])
     return dts, vals, why

@@ -111,3 +111,29 @@ def test_property_no_further_loss_no_crossing(tmp_path_factory, gap):
         assert all(v == t.at_dates[-1] for v in t.projected)
         for c in t.crossings:
             assert c.status in (ALREADY, BEYOND)
+
+
+def test_a_region_that_would_be_lost_is_held_at_the_floor(tmp_path):
+    """Far ahead a region would thin to nothing: it is held at the floor (its station stays,
+    for what its neighbours share with it) and named as lost; no engine run is needed."""
+    from core.trend.match import match_surveys
+    from core.trend.project import T_FLOOR
+    from core.trend.run import fit
+
+    paths, surveys = _series(tmp_path, adds=(1.0, 0.0), dates=("2015-09-17", "2025-09-17"))
+    series = match_surveys(paths, surveys)
+    rates = {
+        (rs.member, rs.station, rs.key): fit(rs, "linear", y0=None, B=0.5) for rs in series.regions
+    }
+    proj, lost = projected_survey(surveys[-1], series.regions, rates, 200.0)
+    assert lost and all("would be lost" in why for why in lost.values())
+    m0, m1 = surveys[-1].members[0], proj.members[0]
+    assert [s.id for s in m1.stations] == [s.id for s in m0.stations]
+    low = min(r.mm() for s in m1.stations for r in s.readings)
+    assert low == pytest.approx(T_FLOOR, abs=1e-9)
+    # nearer, nothing is lost and every reading is 0.1 mm/year x 5 years thinner
+    proj5, lost5 = projected_survey(surveys[-1], series.regions, rates, 5.0)
+    assert not lost5
+    for s0, s5 in zip(m0.stations, proj5.members[0].stations, strict=True):
+        for r0, r5 in zip(s0.readings, s5.readings, strict=True):
+            assert r0.mm() - r5.mm() == pytest.approx(0.5, rel=5e-3)
