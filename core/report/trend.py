@@ -69,6 +69,16 @@ def _badness(t: Tracked) -> float:
     return v if t.higher_is_better else -v
 
 
+def _points(r: TrendResult, values) -> tuple[tuple[float, float], ...]:
+    """(year, value) of the steps with a value, up to the first step without one."""
+    out = []
+    for dt, v in zip(r.dts, values, strict=False):
+        if v is None:
+            break
+        out.append((r.y_last + dt, v))
+    return tuple(out)
+
+
 def _plots(st: Styles, r: TrendResult, member: str, station: str, system: str, width: float):
     L = display_unit("length", system)
     regions = [rs for rs in r.series.regions if rs.member == member and rs.station == station]
@@ -80,7 +90,13 @@ def _plots(st: Styles, r: TrendResult, member: str, station: str, system: str, w
         meas = tuple((y, t * conv) for y, t in zip(rs.years, rs.t, strict=True))
         proj = tuple((r.y_last + dt, r.projected_t(rs, dt) * conv) for dt in r.dts)
         t_hi = max(t_hi, rs.t_nominal * conv, *(v for _y, v in meas))
-        curves.append(Curve(rs.label, meas, proj))
+        edges = ()
+        if r.rate_of(rs).has_band:
+            edges = tuple(
+                tuple((r.y_last + dt, r.projected_t(rs, dt, sc) * conv) for dt in r.dts)
+                for sc in ("fast", "slow")
+            )
+        curves.append(Curve(rs.label, meas, proj, edges))
     x0 = min(r.series.years) - 1
     h = 190.0
     out = [
@@ -109,10 +125,9 @@ def _plots(st: Styles, r: TrendResult, member: str, station: str, system: str, w
         meas = tuple(
             (y, v) for y, v in zip(r.series.years, t.at_dates, strict=True) if v is not None
         )
-        proj = tuple(
-            (r.y_last + dt, v) for dt, v in zip(r.dts, t.projected, strict=True) if v is not None
-        )
-        curves.append(Curve(t.name, meas, proj))
+        proj = _points(r, t.projected)
+        edges = tuple(_points(r, e) for e in (t.fast, t.slow) if e)
+        curves.append(Curve(t.name, meas, proj, edges))
     out.append(Spacer(1, 4))
     out.append(
         time_plot(
@@ -129,7 +144,13 @@ def _plots(st: Styles, r: TrendResult, member: str, station: str, system: str, w
     )
     words = (
         "Points: as assessed at each survey date; dashed: projected by the engine "
-        f"every {r.step:g} years (central rates)."
+        f"every {r.step:g} years (central rates)"
+        + (
+            "; dotted: every rate one standard error faster and slower"
+            if r.steps.keys() - {"central"}
+            else ""
+        )
+        + ". A curve of the rating ends where its station's projection ends (a region lost)."
     )
     if hidden:
         words += " Not drawn (above the plot's range at the latest survey): " + ", ".join(

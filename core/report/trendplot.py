@@ -44,12 +44,14 @@ MARKS = ("circle", "square", "triangle", "diamond")
 
 @dataclass(frozen=True)
 class Curve:
-    """One named curve: ``measured`` (year, value) at the survey dates and ``projected``
-    (year, value) from the latest survey on."""
+    """One named curve: ``measured`` (year, value) at the survey dates, ``projected``
+    (year, value) from the latest survey on, and the band's two edges (thin dotted lines;
+    empty without a band)."""
 
     label: str
     measured: tuple[tuple[float, float], ...]
     projected: tuple[tuple[float, float], ...]
+    edges: tuple[tuple[tuple[float, float], ...], ...] = ()
 
 
 def _mark(d: Drawing, kind: str, x: float, y: float, colour) -> None:
@@ -124,7 +126,7 @@ def time_plot(
     d.add(
         String(
             X(now) + 2,
-            bottom + 3,
+            top - 7,
             "latest survey; projected after",
             fontName=SANS,
             fontSize=5.5,
@@ -152,6 +154,12 @@ def time_plot(
         if len(c.projected) > 1:
             pts = [p for y, v in c.projected for p in (X(y), Y(v))]
             d.add(PolyLine(pts, strokeColor=colour, strokeWidth=0.9, strokeDashArray=[2.5, 1.5]))
+        for edge in c.edges:
+            if len(edge) > 1:
+                pts = [p for y, v in edge for p in (X(y), Y(v))]
+                d.add(
+                    PolyLine(pts, strokeColor=colour, strokeWidth=0.4, strokeDashArray=[0.6, 1.2])
+                )
         # legend
         row, col = divmod(i, ncol)
         lx = left + col * (right - left) / ncol

@@ -34,6 +34,8 @@ class Tracked:
         projected: the measure at each projection step (central rates).
         crossings: one per target (1 and the flag thresholds).
         ended: why the central projection of this limit state ends before the horizon.
+        fast, slow: the measure at each step with every rate one standard error faster and
+            slower (empty without a band).
     """
 
     member: str
@@ -46,6 +48,8 @@ class Tracked:
     projected: tuple[float | None, ...]
     crossings: tuple[Crossing, ...]
     ended: str = ""
+    fast: tuple[float | None, ...] = ()
+    slow: tuple[float | None, ...] = ()
 
     def crossing(self, target: float) -> Crossing:
         for c in self.crossings:
@@ -275,7 +279,13 @@ def _tracked(a_last, series, at_dates, steps, dts, tg, ms) -> tuple[Tracked, ...
                             )
                     fast, slow = band.get("fast", ("", None)), band.get("slow", ("", None))
                     crossings.append(Crossing(t, st, dt, fast[1], slow[1], fast[0], slow[0]))
-                proj = tuple(cvals) + (None,) * (len(dts) - len(cvals))
+                pad = (None,) * len(dts)
+                proj = (tuple(cvals) + pad)[: len(dts)]
+                bands = {
+                    sc: (tuple(_series(steps[sc], key)[1]) + pad)[: len(dts)]
+                    for sc in ("fast", "slow")
+                    if sc in steps
+                }
                 out.append(
                     Tracked(
                         m.member,
@@ -288,6 +298,8 @@ def _tracked(a_last, series, at_dates, steps, dts, tg, ms) -> tuple[Tracked, ...
                         proj,
                         tuple(crossings),
                         cend,
+                        bands.get("fast", ()),
+                        bands.get("slow", ()),
                     )
                 )
     return tuple(out)
