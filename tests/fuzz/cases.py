@@ -46,7 +46,7 @@ SURVEY_COMMANDS = [
     ["export", "{dir}/new.asf", "-o", "{dir}/out.json"],
     [
         "trend",
-        str(SAMPLES / "through-girder-us-2019.json"),
+        str(SAMPLES / "earlier" / "through-girder-us-2019.json"),
         "{dir}/in.json",
         "--json",
         "--horizon",

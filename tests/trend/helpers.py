@@ -17,7 +17,7 @@ ROOT = Path(__file__).resolve().parents[2]
 SAMPLES = ROOT / "survey_samples"
 SI = SAMPLES / "deck-girder-si.json"
 US = SAMPLES / "through-girder-us.json"
-US_EARLIER = SAMPLES / "through-girder-us-2019.json"
+US_EARLIER = SAMPLES / "earlier" / "through-girder-us-2019.json"
 
 
 def doc(path: Path = SI) -> dict:
