@@ -290,9 +290,15 @@ def story(r: TrendResult, system: str, width: float) -> list:
             out.append(Paragraph(esc(crit[1]), st.body))
             out.append(KeepTogether(_plots(st, r, m, crit[0], system, width)))
         out.append(Paragraph(esc(f"When the {r.measure} crosses 1 and the thresholds"), st.h2))
-        out.append(_crossing_table(st, r, m, width))
+        if any(t.member == m for t in r.tracked):
+            out.append(_crossing_table(st, r, m, width))
+        else:
+            out.append(Paragraph(esc("No limit state of this member is rated."), st.body))
         out.append(Paragraph(esc("Loss rate per part region"), st.h2))
-        out.append(_rate_table(st, r, m, system, width))
+        if any(rs.member == m for rs in s.regions):
+            out.append(_rate_table(st, r, m, system, width))
+        else:
+            out.append(Paragraph(esc("No part region was read at the matched stations."), st.body))
     return out
 
 

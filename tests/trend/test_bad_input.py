@@ -108,3 +108,23 @@ def test_cli_never_writes_over_an_input(tmp_path, capsys):
     assert main(["trend", *paths, "-o", paths[0]]) == 2
     assert "refusing" in capsys.readouterr().err
     assert (tmp_path / "a.json").read_bytes() == before
+
+
+def test_power_law_needs_the_year_corrosion_began(tmp_path):
+    a, b = shifted(doc(), "2019-01-10", 0.3), doc()
+    for d in (a, b):
+        d["survey"]["year_built"] = None
+    paths, surveys = _pair(tmp_path, a, b)
+    with pytest.raises(TrendError, match="--since") as e:
+        trend(paths, surveys=surveys, model="power")
+    assert paths[1] in str(e.value)
+    with pytest.raises(TrendError, match="before the first survey"):
+        trend(paths, surveys=surveys, model="power", since=2020.0)
+
+
+def test_exponent_only_with_the_power_law(tmp_path, capsys):
+    paths, _ = _pair(tmp_path, shifted(doc(), "2019-01-10", 0.3), doc())
+    assert main(["trend", *paths, "--exponent", "0.5"]) == 2
+    assert "--exponent applies to --model power only" in capsys.readouterr().err
+    assert main(["trend", *paths, "--tolerance", "two metres"]) == 2
+    assert "--tolerance" in capsys.readouterr().err

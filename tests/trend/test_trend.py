@@ -137,3 +137,25 @@ def test_a_region_that_would_be_lost_is_held_at_the_floor(tmp_path):
     for s0, s5 in zip(m0.stations, proj5.members[0].stations, strict=True):
         for r0, r5 in zip(s0.readings, s5.readings, strict=True):
             assert r0.mm() - r5.mm() == pytest.approx(0.5, rel=5e-3)
+
+
+def test_power_law_through_the_engine(tmp_path):
+    """The power law with B = 0.5 from the year built (1910 in the sample): A is the least
+    squares fit through the origin, A = sum(d tau^B) / sum(tau^2B); the loss ahead follows
+    A ((tau + dt)^B - tau^B), and the statement says the exponent range is from memory."""
+    from core.trend.export import model_statement
+
+    paths, surveys = _series(tmp_path, adds=(1.0, 0.0), dates=("2015-09-17", "2025-09-17"))
+    r = trend(paths, surveys=surveys, model="power", B=0.5, horizon=10.0, step_years=10.0)
+    assert r.y0 == 1910 and r.B == 0.5
+    rs, rt = r.series.regions[0], r.rates[0]
+    tau = [y - 1910 for y in rs.years]
+    d = [rs.t_nominal - t for t in rs.t]
+    a_fit = (d[0] * tau[0] ** 0.5 + d[1] * tau[1] ** 0.5) / (tau[0] + tau[1])
+    fitted = rt.A
+    assert fitted == pytest.approx(a_fit, rel=1e-12)
+    assert r.projected_t(rs, 10.0) == pytest.approx(
+        rs.t[-1] - a_fit * ((tau[1] + 10) ** 0.5 - tau[1] ** 0.5), rel=1e-12
+    )
+    assert "from memory" in model_statement(r) and "0.3 to 0.8" in model_statement(r)
+    assert set(r.steps) == {"central", "fast", "slow"}  # A has a standard error
