@@ -18,12 +18,17 @@ from core.outputs import atomic_output, check_output
 from core.report.fmt import num
 from core.report.page import PageInfo, canvas_maker, document
 from core.report.source import checksum
-from core.report.styles import MARGIN, Styles, esc, make_table_style, page_size
+from core.report.styles import MARGIN, Markup, Styles, esc, make_table_style, page_size
 from core.report.trendplot import Curve, time_plot
 from core.trend.crossing import ALREADY, CROSSES
 from core.trend.export import crossing_words, method_statement, model_statement
 from core.trend.run import Tracked, TrendResult
 from core.units import display_unit, from_internal, symbol
+
+
+def _head(h: str) -> str:
+    """A header cell's markup: survey text escaped, our own markup kept."""
+    return h if isinstance(h, Markup) else esc(h)
 
 
 def _checksum(r: TrendResult) -> str:
@@ -165,10 +170,13 @@ def _crossing_table(st: Styles, r: TrendResult, member: str, width: float) -> Ta
     head = [
         "station",
         "limit state",
-        *(f"{r.symbol} {d.isoformat()}" for d in r.series.dates),
+        *(
+            Markup(f'{esc(r.symbol)}<br/><font size="6.4">{d.isoformat()}</font>')
+            for d in r.series.dates
+        ),
         *(f"year: {t.label} ({t.value:g})" for t in r.targets),
     ]
-    rows = [[Paragraph(esc(h), st.head) for h in head]]
+    rows = [[Paragraph(_head(h), st.head) for h in head]]
     for t in r.tracked:
         if t.member != member:
             continue
@@ -180,59 +188,78 @@ def _crossing_table(st: Styles, r: TrendResult, member: str, width: float) -> Ta
                 *(Paragraph(esc(crossing_words(r, c)), st.cell) for c in t.crossings),
             ]
         )
-    fixed = 38 + 46 * n
+    fixed = 38 + 50 * n
     rest = width - fixed
     lsw = min(110.0, rest * 0.28)
     cw = (rest - lsw) / len(r.targets)
-    widths = [38, lsw, *([46] * n), *([cw] * len(r.targets))]
+    widths = [38, lsw, *([50] * n), *([cw] * len(r.targets))]
     return Table(rows, colWidths=widths, repeatRows=1, style=make_table_style(zebra=True))
 
 
-def _rate_table(st: Styles, r: TrendResult, member: str, system: str, width: float) -> Table:
+def _rate_table(st: Styles, r: TrendResult, member: str, system: str, width: float) -> list:
+    """The loss rate table of a member, and a line naming the fit (one column per method
+    only when they differ) and any region whose fit shows thickening."""
     L = display_unit("length", system)
     u = symbol(L)
     c = from_internal(1.0, "length", L)
     dig = 3 if system == "us" else 2
+    pairs = [
+        (rs, rt) for rs, rt in zip(r.series.regions, r.rates, strict=True) if rs.member == member
+    ]
+    methods = sorted({rt.method for _rs, rt in pairs})
+    one = len(methods) == 1
+    us = system == "us"
     head = [
         "station",
         "part region",
-        *(f"t {d.isoformat()} ({u})" for d in r.series.dates),
+        *(
+            Markup(f't ({esc(u)})<br/><font size="6.4">{d.isoformat()}</font>')
+            for d in r.series.dates
+        ),
         f"loss rate ({u}/year)",
-        "from",
+        *(["the same (mm/year)"] if us else []),
+        *([] if one else ["from"]),
         f"t in {r.horizon / 5:g} yr",
         f"t in {r.horizon:g} yr",
     ]
-    rows = [[Paragraph(esc(h), st.head) for h in head]]
-    for rs, rt in zip(r.series.regions, r.rates, strict=True):
-        if rs.member != member:
-            continue
+    rows = [[Paragraph(_head(h), st.head) for h in head]]
+    thick = []
+    for rs, rt in pairs:
         by_year = dict(zip(rs.years, rs.t, strict=True))
-        rate = f"{rt.r * c:.{dig + 2}f}"
-        if rt.se is not None:
-            rate += f" ± {rt.se * c:.{dig + 2}f}"
+        rate = f"{rt.r * c:.{dig + 2}f}" + ("" if rt.se is None else f" ± {rt.se * c:.{dig + 2}f}")
+        mm = f"{rt.r:.3f}" + ("" if rt.se is None else f" ± {rt.se:.3f}")
+        if "thickening" in rt.note:
+            thick.append(f"{rs.station} {rs.label}")
         far = r.projected_t(rs, r.horizon) * c
-        rows.append(
-            [
-                Paragraph(esc(rs.station), st.cell),
-                Paragraph(esc(rs.label), st.cell),
-                *(
-                    Paragraph(
-                        esc("–" if y not in by_year else f"{by_year[y] * c:.{dig}f}"), st.cell_num
-                    )
-                    for y in r.series.years
-                ),
-                Paragraph(esc(rate), st.cell_num),
-                Paragraph(
-                    esc(rt.method + (f"; {rt.note}" if "thickening" in rt.note else "")), st.cell
-                ),
-                Paragraph(esc(f"{r.projected_t(rs, r.horizon / 5) * c:.{dig}f}"), st.cell_num),
-                Paragraph(esc("lost" if far <= 0 else f"{far:.{dig}f}"), st.cell_num),
-            ]
-        )
+        cells = [
+            (rs.station, st.cell),
+            (rs.label, st.cell),
+            *(
+                ("–" if y not in by_year else f"{by_year[y] * c:.{dig}f}", st.cell_num)
+                for y in r.series.years
+            ),
+            (rate, st.cell_num),
+            *([(mm, st.cell_num)] if us else []),  # corrosion studies give mm/year
+            *([] if one else [(rt.method, st.cell)]),
+            (f"{r.projected_t(rs, r.horizon / 5) * c:.{dig}f}", st.cell_num),
+            ("lost" if far <= 0 else f"{far:.{dig}f}", st.cell_num),
+        ]
+        rows.append([Paragraph(esc(v), sty) for v, sty in cells])
     n = len(r.series.surveys)
-    fixed = 38 + 80 + 48 * n + 80 + 48 + 48
-    widths = [38, 80, *([48] * n), 80, width - fixed, 48, 48]
-    return Table(rows, colWidths=widths, repeatRows=1, style=make_table_style(zebra=True))
+    tail = [*([62] if us else []), *([] if one else [70]), 44, 44]
+    widths = [36, 0, *([50] * n), 84, *tail]
+    widths[1] = width - sum(widths)
+    out: list = [Table(rows, colWidths=widths, repeatRows=1, style=make_table_style(zebra=True))]
+    words = f"Every rate of this member: {methods[0]}." if one else ""
+    if thick:
+        words += (
+            " The fit shows thickening (measurement scatter), no further loss projected: "
+            + ", ".join(thick)
+            + "."
+        )
+    if words:
+        out.append(Paragraph(esc(words.strip()), st.caption))
+    return out
 
 
 def story(r: TrendResult, system: str, width: float) -> list:
@@ -296,7 +323,7 @@ def story(r: TrendResult, system: str, width: float) -> list:
             out.append(Paragraph(esc("No limit state of this member is rated."), st.body))
         out.append(Paragraph(esc("Loss rate per part region"), st.h2))
         if any(rs.member == m for rs in s.regions):
-            out.append(_rate_table(st, r, m, system, width))
+            out += _rate_table(st, r, m, system, width)
         else:
             out.append(Paragraph(esc("No part region was read at the matched stations."), st.body))
     return out
