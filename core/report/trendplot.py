@@ -12,6 +12,7 @@ from dataclasses import dataclass
 
 from reportlab.graphics.shapes import Circle, Drawing, Line, Polygon, PolyLine, Rect, String
 from reportlab.lib import colors
+from reportlab.pdfbase.pdfmetrics import stringWidth
 
 from core.report.fmt import tick
 from core.report.styles import (
@@ -52,6 +53,22 @@ class Curve:
     measured: tuple[tuple[float, float], ...]
     projected: tuple[tuple[float, float], ...]
     edges: tuple[tuple[tuple[float, float], ...], ...] = ()
+
+
+def clip(points: Sequence[tuple[float, float]], lo: float, hi: float) -> list[tuple[float, float]]:
+    """``points`` up to where the curve leaves [lo, hi], ending on the edge it crosses
+    (a curve that leaves the plot is not drawn along its edge)."""
+    out: list[tuple[float, float]] = []
+    for x, v in points:
+        if lo <= v <= hi:
+            out.append((x, v))
+            continue
+        if out:
+            xa, va = out[-1]
+            edge = hi if v > hi else lo
+            out.append((xa + (edge - va) / (v - va) * (x - xa), edge))
+        break
+    return out
 
 
 def _mark(d: Drawing, kind: str, x: float, y: float, colour) -> None:
@@ -133,14 +150,20 @@ def time_plot(
             fillColor=MUTED,
         )
     )
-    for v, lab in lines:
+    later: list = []  # the target labels, drawn over the curves
+    for k, (v, lab) in enumerate(lines):
         if not y0 <= v <= y1:
             continue
         d.add(
             Line(left, Y(v), right, Y(v), strokeColor=INK, strokeWidth=0.5, strokeDashArray=[1, 2])
         )
-        d.add(
-            String(right - 2, Y(v) + 1.5, text(lab), fontName=SANS, fontSize=5.5, textAnchor="end")
+        # labels alternate right and left, so that close thresholds stay readable
+        x, anchor = (right - 2, "end") if k % 2 == 0 else (X(now) + 3, "start")
+        w = stringWidth(text(lab), SANS, 5.5)
+        x0b = x - w - 1 if anchor == "end" else x - 1
+        later.append(Rect(x0b, Y(v) + 0.8, w + 2, 6.2, fillColor=colors.white, strokeColor=None))
+        later.append(
+            String(x, Y(v) + 1.5, text(lab), fontName=SANS, fontSize=5.5, textAnchor=anchor)
         )
     for i, c in enumerate(curves):
         colour = PALETTE[i % len(PALETTE)]
@@ -152,11 +175,11 @@ def time_plot(
         for y, v in c.measured:
             _mark(d, mark, X(y), Y(v), colour)
         if len(c.projected) > 1:
-            pts = [p for y, v in c.projected for p in (X(y), Y(v))]
+            pts = [p for y, v in clip(c.projected, y0, y1) for p in (X(y), Y(v))]
             d.add(PolyLine(pts, strokeColor=colour, strokeWidth=0.9, strokeDashArray=[2.5, 1.5]))
         for edge in c.edges:
             if len(edge) > 1:
-                pts = [p for y, v in edge for p in (X(y), Y(v))]
+                pts = [p for y, v in clip(edge, y0, y1) for p in (X(y), Y(v))]
                 d.add(
                     PolyLine(pts, strokeColor=colour, strokeWidth=0.4, strokeDashArray=[0.6, 1.2])
                 )
@@ -167,4 +190,6 @@ def time_plot(
         d.add(Line(lx, ly + 2, lx + 12, ly + 2, strokeColor=colour, strokeWidth=0.9))
         _mark(d, mark, lx + 6, ly + 2, colour)
         d.add(String(lx + 15, ly, text(c.label)[:48], fontName=SANS, fontSize=5.8, fillColor=INK))
+    for shape in later:
+        d.add(shape)
     return d
