@@ -44,6 +44,9 @@ SURVEY_COMMANDS = [
     ["report", "{dir}/in.json", "-o", "{dir}/out.pdf"],
     ["import", "{dir}/in.json", "-o", "{dir}/new.asf"],
     ["export", "{dir}/new.asf", "-o", "{dir}/out.json"],
+]
+#: the trend from the invented earlier survey of the through girder to the case's survey
+TREND_COMMANDS = [
     [
         "trend",
         str(SAMPLES / "earlier" / "through-girder-us-2019.json"),
@@ -95,7 +98,7 @@ def job(case: tuple) -> tuple[dict[str, bytes], list[list[str]]]:
 
     kind, name, arg = case
     if kind == "survey":
-        return {"in.json": apply(sample(name), arg)}, SURVEY_COMMANDS
+        return {"in.json": apply(sample(name), arg)}, SURVEY_COMMANDS + TREND_COMMANDS
     if kind == "section":
         data = arg if name == "random" else apply(sample(name), arg)
         return {"in.json": data}, SECTION_COMMANDS
