@@ -15,7 +15,7 @@ from core import CAUTION, __version__
 from core.errors import AsfoundError
 
 #: subcommand modules, in the order shown by --help
-COMMANDS = ("section", "validate", "import", "export", "assess", "report", "merge")
+COMMANDS = ("section", "validate", "import", "export", "assess", "report", "trend", "merge")
 
 
 def build_parser() -> argparse.ArgumentParser:

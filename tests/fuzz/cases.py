@@ -4,7 +4,8 @@ Three kinds of input, each a hypothesis strategy of cases and a function that tu
 into the files and the commands the worker runs:
 
 * ``survey``: a sample survey file, mutated (:mod:`tests.fuzz.mutate`); validate, assess
-  (table and JSON), report, import into a new store and export it again;
+  (table and JSON), report, import into a new store and export it again, and the trend from
+  the invented earlier survey of the through girder to it (JSON, one projection step);
 * ``section``: the sample section description, mutated, or a random one
   (:mod:`tests.fuzz.sections`); ``asfound section`` in both unit systems and as JSON;
 * ``store``: a field store of the SI sample with an entry mutated or its bytes damaged
@@ -44,6 +45,19 @@ SURVEY_COMMANDS = [
     ["report", "{dir}/in.json", "-o", "{dir}/out.pdf"],
     ["import", "{dir}/in.json", "-o", "{dir}/new.asf"],
     ["export", "{dir}/new.asf", "-o", "{dir}/out.json"],
+]
+#: the trend from the invented earlier survey of the through girder to the case's survey
+TREND_COMMANDS = [
+    [
+        "trend",
+        str(SAMPLES / "earlier" / "through-girder-us-2019.json"),
+        "{dir}/in.json",
+        "--json",
+        "--horizon",
+        "10",
+        "--step",
+        "10",
+    ],
 ]
 SECTION_COMMANDS = [
     ["section", "{dir}/in.json"],
@@ -86,7 +100,7 @@ def job(case: tuple) -> tuple[dict[str, bytes], list[list[str]]]:
 
     kind, name, arg = case
     if kind == "survey":
-        return {"in.json": apply(sample(name), arg)}, SURVEY_COMMANDS
+        return {"in.json": apply(sample(name), arg)}, SURVEY_COMMANDS + TREND_COMMANDS
     if kind == "section":
         data = arg if name == "random" else apply(sample(name), arg)
         return {"in.json": data}, SECTION_COMMANDS
