@@ -25,7 +25,7 @@ from core.survey import Problem, Survey
 
 @dataclass(frozen=True)
 class Report:
-    """A written report: where, how many pages, the verdict, and where figures landed."""
+    """A written report: where, how many pages, the overall flag level, and where figures landed."""
 
     path: Path
     pages: int

@@ -15,6 +15,7 @@ from core.survey import FieldStore
 from core.units import show
 from fieldapp.names import readable
 from fieldapp.places import store_files
+from fieldapp.present import esc
 from tests.app.conftest import stop
 from tests.app.helpers import (
     answer,
@@ -135,7 +136,9 @@ def check_results_table(d, store) -> None:
             assert number == pytest.approx(shown.value, rel=5e-3, abs=0.5)
             assert text.endswith(shown.symbol)
     worst = max(sr.flags, key=lambda f: f.level)
-    assert readable(worst.message) in d.screen("results").ids.worst.text
+    shown = d.screen("results").ids.worst.text
+    assert esc(readable(worst.detail)) in shown
+    assert shown.count(worst.label) == 1  # the level once, by its shape and words
     assert app.caution
 
 
@@ -189,7 +192,7 @@ def test_band_hole_note_and_photo_are_stored(field, tmp_path):
     d.tap(key(d, "Enter"))
     type_on(d, "6")
     d.tap(st.ids.pad.ids.yes)  # Add band
-    d.tap(st.ids.tabs.children[-3])  # Hole
+    d.tap(st.ids.tabs.children[-3])  # Perforation
     type_on(d, "300")
     d.tap(key(d, "Enter"))
     type_on(d, "340")

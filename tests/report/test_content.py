@@ -16,6 +16,7 @@ from core.report.cover import CAUTIONS
 from core.report.fmt import position, ratio, rf, value
 from core.report.member import governing_stations, shear_for_plot
 from core.report.notes import check_sources
+from core.report.styles import LEVEL_MARK
 
 from .helpers import SI_SAMPLE, US_SAMPLE, flat, pdf_pages
 
@@ -55,11 +56,11 @@ def test_checksum_is_sha256_of_the_input_bytes(si):
     assert rep.checksum == hashlib.sha256(SI_SAMPLE.read_bytes()).hexdigest()[:16]
 
 
-def test_cover_has_verdict_and_cautions(si):
+def test_cover_has_overall_level_and_cautions(si):
     rep, pages, _ = si
     cover = pages[0]
     assert rep.level == max(f.level for f in rep.assessment.all_flags())
-    assert f"Overall verdict {rep.level.label}" in cover.replace("■ ", "").replace("△ ", "")
+    assert f"Overall flag level {LEVEL_MARK[rep.level]} {rep.level.label}" in cover
     assert flat(CAUTION) in cover
     for c in CAUTIONS:
         assert flat(c) in cover
