@@ -263,7 +263,7 @@ FORBIDDEN: dict[str, str] = {
     r"(?<!rivet )(?<!rivet-)\bhole\b": "perforation (a rivet hole says 'rivet hole')",
     r"\bflat leg\b": "horizontal leg",
     r"\bupright leg\b": "vertical leg",
-    r"\bon web\b": "vertical leg",
+    r"\bleg,? on (?:the )?web\b": "vertical leg",
     r"\bverdict\b": OVERALL_LEVEL,
     r"\[(?:OK|WATCH|REVIEW|URGENT)\]": "the level's shape and words",
     r"\bfound / built\b": "ratio",
