@@ -84,3 +84,11 @@ def readable(text: str) -> str:
     text = _PARTS.sub(lambda m: part_name(m.group(1)), text)
     text = _LINE_IDS.sub(lambda m: line_name(m.group(1)), text)
     return _IDS.sub(lambda m: part_name(m.group(1)), text)
+
+
+def annotated(text: str) -> str:
+    """A sentence with each girder template id followed by its words, for the report
+    ("rivets, line web_bottom" -> "rivets, line web_bottom (bottom line through the web)");
+    the ids stay, so that the report can be read against the survey file."""
+    text = _LINE_IDS.sub(lambda m: f"{m.group(1)} ({line_name(m.group(1))})", text)
+    return _IDS.sub(lambda m: f"{m.group(1)} ({part_name(m.group(1))})", text)

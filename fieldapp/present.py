@@ -125,7 +125,7 @@ def governing_line(sr: StationResult) -> str:
     if g is None:
         return "no limit state could be evaluated"
     rf = f", {g.rating.symbol} {rf_text(g.measure)}" if g.rating is not None else ""
-    return f"governs: {readable(g.name)}, as-found / as-built {ratio_text(g.ratio)}{rf}"
+    return f"governs: {readable(g.name)}, ratio {ratio_text(g.ratio)}{rf}"
 
 
 def loss_text(sr: StationResult, part: str) -> str:

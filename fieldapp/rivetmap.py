@@ -20,7 +20,7 @@ from fieldapp import theme
 from fieldapp.names import line_name
 
 DOT_DP = 52  # a rivet's touch target
-LINE_LABEL_DP = 170  # width of the line names
+LINE_LABEL_DP = 200  # width of the line names (in words, two lines, and the counts)
 
 
 def draw_mark(state: str, cx: float, cy: float, d: float, ring: float) -> None:
@@ -214,7 +214,7 @@ class RivetRow(Widget):
     def __init__(self, rivets: list[tuple[float, str]], on_tap, **kw) -> None:
         super().__init__(**kw)
         self.size_hint_y = None
-        self.height = dp(DOT_DP + 6)
+        self.height = dp(DOT_DP + 20)  # three lines of small text beside the rivets
         self.name_label = Label(
             text="", color=theme.INK, font_size=sp(theme.SMALL_SP), halign="left", bold=True
         )
@@ -246,4 +246,4 @@ class RivetRow(Widget):
                 self.remove_widget(d)
             if show:
                 x = x0 + w * (d.position - self.start) / max(self.width_shown, 1e-9)
-                d.pos = (x - dp(DOT_DP) / 2, self.y + dp(3))
+                d.pos = (x - dp(DOT_DP) / 2, self.y + dp(10))

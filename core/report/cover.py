@@ -12,6 +12,7 @@ from core import CAUTION, __version__
 from core.assess.results import Assessment, MemberResult, StationResult
 from core.checks.flags import Level
 from core.glossary import OVERALL_LEVEL
+from core.names import annotated
 from core.report.fmt import position, position_label, ratio, rf, system_name
 from core.report.source import Source
 from core.report.styles import (
@@ -67,7 +68,7 @@ def lowest(m: MemberResult, attr: str) -> tuple[float | None, str]:
                     continue
                 k = v
             if key is None or k < key:
-                best, key = (v, f"{s.station}, {ls.name}"), k
+                best, key = (v, f"{s.station}, {annotated(ls.name)}"), k
     return best
 
 
@@ -207,7 +208,7 @@ def summary(st: Styles, a: Assessment, system: str, width: float) -> list:
             [
                 m.member,
                 f"{ws.station} (x = {position(ws.x, system)} {pu})" if ws else "–",
-                gov.name if gov else "–",
+                annotated(gov.name) if gov else "–",
                 ratio(lr),
                 rf(lf),
                 level_markup(m.level, bold=False),

@@ -180,7 +180,7 @@ class StationScreen(EntryMixin, EntriesMixin, Screen):
         for chip in self.ids.chips.children:
             loss = present.loss_text(sr, chip.part_id)
             name = part_name(chip.part_id)
-            chip.text = f"{name}\n{loss}" if loss else name
+            chip.text = f"{name} {loss}" if loss else name  # the loss wraps with the name
 
     # ------------------------------------------------------------------ choosing
     def choose_part(self, part_id: str) -> None:

@@ -1,6 +1,6 @@
 """Every screen at every tablet size: nothing cut, shortened, overlapping or off the window.
 
-Walks each screen (and the pad's states: a held value, the band and hole forms, the pad
+Walks each screen (and the pad's states: a held value, the band and perforation forms, the pad
 over the Member screen, the undo question) at 800x1280 (portrait), 1024x768, 1280x800,
 1366x768 and 1920x1080, writes a screenshot of each to tests/_artifacts/screens/ and fails
 on every problem found by tests/app/layout.py.
@@ -63,6 +63,13 @@ def states(d, tmp_path):
     d.tap(nav(d, "results"))
     d.until(lambda: app.result is not None and app.result.seq == app.seq, timeout=10)
     yield "results"
+    from kivy.uix.scrollview import ScrollView
+
+    view = next(w for w in d.screen("results").walk() if isinstance(w, ScrollView))
+    view.scroll_y = 0  # the flags under the table: each with its level once, shape and words
+    d.pump(0.2)
+    yield "results-flags"
+    view.scroll_y = 1
     station.choose_part("web")
     station.commit_reading("6.8")
     d.pump(0.4)

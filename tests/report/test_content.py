@@ -11,6 +11,7 @@ from pypdf import PdfReader
 
 from core import CAUTION
 from core.checks.flags import Level
+from core.names import annotated
 from core.report import build_report
 from core.report.cover import CAUTIONS
 from core.report.fmt import position, ratio, rf, value
@@ -72,8 +73,8 @@ def test_ratios_and_rating_factors_of_every_limit_state(si):
     for m in rep.assessment.members:
         for s in m.stations:
             for ls in s.limit_states:
-                row = (
-                    f"{ls.name} {value(ls.C_built, ls.kind, 'si')} "
+                row = (  # the ids with their words beside them (core.names.annotated)
+                    f"{annotated(ls.name)} {value(ls.C_built, ls.kind, 'si')} "
                     f"{value(ls.C_found, ls.kind, 'si')} {ratio(ls.ratio)} "
                     f"{value(ls.demand, ls.kind, 'si')} {rf(ls.measure)}"
                 )
@@ -183,7 +184,7 @@ def test_us_report_in_us_units(us):
     s = m.stations[0]
     assert "not applicable" in text and not s.found.shear_applicable
     for ls in s.limit_states:
-        assert f"{ls.name} {value(ls.C_built, ls.kind, 'us')}" in text
+        assert f"{annotated(ls.name)} {value(ls.C_built, ls.kind, 'us')}" in text
 
 
 def test_girder_ends_are_drawn_with_their_limit_states_and_inputs(us):
