@@ -52,7 +52,7 @@ def test_assess_and_report_read_the_same_options_file(tmp_path):
 
 
 def test_flags_win_over_the_file_and_the_file_over_the_survey(tmp_path):
-    f = options_file(tmp_path, level="legal", depth_basis="web")
+    f = options_file(tmp_path, rating_level="legal", depth_basis="web")
     doc = json.loads(run("assess", US, "--options", f, "--rating-level", "operating", "--json"))
     fac = {x["symbol"]: x["value"] for x in doc["family"]["factors"]}
     assert fac["gLL"] == 1.35  # operating from the flag
