@@ -83,14 +83,15 @@ def test_create_enter_mark_undo_and_reopen(field, tmp_path):
     # undo says exactly what it will undo, and does it only when asked
     d.tap(app.root.ids.undo)
     assert (
-        app.confirm.text == f"Undo rivet web, bottom at {dot.position:g} m: loose -> missing on G1?"
+        app.confirm.text
+        == f"Undo rivet bottom line through the web at {dot.position:g} m: loose -> missing on G1?"
     )
     answer(d, yes=False)
     assert dict(app.session.rivet_line_states("web_bottom"))[dot.position] == "missing"
     d.tap(app.root.ids.undo)
     answer(d)
     assert dict(app.session.rivet_line_states("web_bottom"))[dot.position] == "loose"
-    assert app.status.startswith("undone: rivet web, bottom")
+    assert app.status.startswith("undone: rivet bottom line through the web")
 
     # results shown equal core's numbers for the survey in the store
     d.tap(nav(d, "results"))
