@@ -247,6 +247,16 @@ NOUNS: dict[str, Term] = {
             "the load rating level: inventory, operating, legal or permit (not a flag level)",
         ),
         Term(
+            "flag",
+            "flag",
+            "a result graded by a flag level, naming the number that drove it",
+        ),
+        Term(
+            "problem",
+            "problem",
+            "an error, warning or note that validation found in a survey file or field store",
+        ),
+        Term(
             "ratio",
             "ratio",
             "as-found capacity divided by as-built capacity",
@@ -270,6 +280,7 @@ FORBIDDEN: dict[str, str] = {
     r"\bsurvey store\b": "field store",
     r"\bstore file\b": "field store",
     r"--level\b": "--rating-level",
+    r"\bfindings?\b": "flag (a graded result) or problem (from validation)",
 }
 
 

@@ -90,5 +90,14 @@ def annotated(text: str) -> str:
     """A sentence with each girder template id followed by its words, for the report
     ("rivets, line web_bottom" -> "rivets, line web_bottom (bottom line through the web)");
     the ids stay, so that the report can be read against the survey file."""
-    text = _LINE_IDS.sub(lambda m: f"{m.group(1)} ({line_name(m.group(1))})", text)
-    return _IDS.sub(lambda m: f"{m.group(1)} ({part_name(m.group(1))})", text)
+    text = _QUOTED_LINE.sub(lambda m: f"{m.group(0)} ({line_name(m.group(1))})", text)
+    text = _QUOTED_PART.sub(lambda m: f"{m.group(0)} ({part_name(m.group(1))})", text)
+    text = _BARE_LINE.sub(lambda m: f"{m.group(1)} ({line_name(m.group(1))})", text)
+    return _BARE_PART.sub(lambda m: f"{m.group(1)} ({part_name(m.group(1))})", text)
+
+
+# an id in quotes gets its words after the closing quote; a bare id right after it
+_QUOTED_LINE = re.compile(rf"'({_LINE})'")
+_QUOTED_PART = re.compile(rf"'({_PART})'")
+_BARE_LINE = re.compile(rf"(?<!')\b({_LINE})\b(?!')")
+_BARE_PART = re.compile(rf"(?<!')\b({_PART})\b(?!')")

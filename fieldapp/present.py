@@ -96,7 +96,7 @@ def worst_flag(sr: StationResult) -> Flag | None:
 def flag_line(flag: Flag | None) -> str:
     """Label markup: the level once (shape and words), what the flag is about, core's sentence."""
     if flag is None:
-        return "no findings"
+        return "no flags"
     about = readable(flag.subject.split(" / ")[-1])
     return (
         f"{level_mark(flag.level)} {esc(flag.label)} · {esc(about)}: {esc(readable(flag.detail))}"
@@ -107,7 +107,7 @@ def flag_head(flag: Flag | None) -> str:
     """Label markup: the level (shape and words) and what the worst flag is about (its
     sentence is on Results)."""
     if flag is None:
-        return "no findings"
+        return "no flags"
     about = readable(flag.subject.split(" / ")[-1])
     return f"{level_mark(flag.level)} {esc(flag.label)}: {esc(about)}"
 

@@ -161,7 +161,7 @@ def cover(
             [Paragraph(level_markup(lv), st.overall)],
             [
                 Paragraph(
-                    f"{esc(level_sentence(lv))} {n} finding(s) at this level; the worst "
+                    f"{esc(level_sentence(lv))} {n} flag(s) at this level; the worst "
                     f"level of all flags decides the {OVERALL_LEVEL}.",
                     st.body,
                 )

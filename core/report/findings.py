@@ -173,7 +173,7 @@ def flags(st: Styles, m: MemberResult, system: str, width: float) -> list:
     ]
     if rows:
         w = [0.08, 0.22, 0.7]
-        out.append(grid(st, ["station", "about", "finding"], rows, [width * x for x in w]))
+        out.append(grid(st, ["station", "about", "flag"], rows, [width * x for x in w]))
     else:
         out.append(Paragraph("No flag above 'within limits'.", st.body))
     out.append(

@@ -45,7 +45,7 @@ class ResultsScreen(Screen):
                 table.add_widget(Factory.Cell(text=text, key=r.key))
         flag = present.worst_flag(sr)
         ids.worst.level = f"l{int(flag.level) if flag else 0}"
-        ids.worst.text = "worst finding: " + present.flag_line(flag)
+        ids.worst.text = "worst flag: " + present.flag_line(flag)
         notes = present.grouped_notes(present.rows(sr, result.unit_system))
         ids.flags.text = "\n".join(
             [
