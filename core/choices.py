@@ -35,7 +35,14 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
     p.add_argument("--thickness", choices=("mean", "minimum"), help="reading statistic for A, I, Q")
     p.add_argument("--loose-counts", action="store_true", help="count loose rivets as effective")
     p.add_argument("--condition", choices=CONDITIONS, help="member condition (condition factor)")
-    p.add_argument("--level", choices=LEVELS, help="rating level (default: inventory)")
+    p.add_argument(
+        "--rating-level",
+        choices=LEVELS,
+        dest="rating_level",
+        help="rating level, not a flag level (default: inventory)",
+    )
+    # the earlier name, kept hidden so that old scripts run; it clashed with the flag levels
+    p.add_argument("--level", choices=LEVELS, dest="rating_level", help=argparse.SUPPRESS)
     p.add_argument("--structure-type", choices=STRUCTURE_TYPES, help="for the system factor")
     p.add_argument(
         "--live-load", choices=LIVE_LOADS, help="live load model (default: the family's)"
@@ -59,7 +66,7 @@ def _cli(args: argparse.Namespace) -> dict[str, Any]:
         ("depth", "depth_basis"),
         ("thickness", "thickness_policy"),
         ("condition", "condition"),
-        ("level", "level"),
+        ("rating_level", "level"),
         ("structure_type", "structure_type"),
         ("live_load", "live_load"),
         ("distribution", "distribution"),

@@ -6,13 +6,16 @@ from __future__ import annotations
 import json
 import sys
 
+from rich.text import Text
+
 from core import CAUTION
 from core.assess import assess
 from core.assess.detailsout import girder_tables
 from core.assess.export import assessment_dict
 from core.choices import add_arguments, options_for
+from core.console import Voice, emit, level_style, make_console, table
+from core.glossary import OVERALL_LEVEL
 from core.survey import load_survey
-from core.textable import render
 from core.units import display_unit, from_internal, symbol
 
 
@@ -41,9 +44,14 @@ def _factors(a) -> str:
             (f"{m.member}: {x.symbol}", f"{x.value:.4g}", x.description, x.source)
             for x in m.factors
         ]
-    return render(
+    return table(
         ("factor", "value", "what", "source"), rows, "Factors of the family (every one used)"
     )
+
+
+def _flag_line(con, f, indent: str = "  ") -> None:
+    """One flag: its level once (in the level's colour on a terminal), subject, sentence."""
+    emit(con, Text.assemble(indent, (f.label, level_style(f.label)), f" · {f.subject}: {f.detail}"))
 
 
 def run(args) -> int:
@@ -54,11 +62,21 @@ def run(args) -> int:
         json.dump(assessment_dict(a, system), sys.stdout, indent=2, ensure_ascii=False)
         sys.stdout.write("\n")
         return 0
+    con, voice = make_console(), Voice.of(args)
+
+    def print(x: object = "") -> None:  # every line through the one console
+        emit(con, x)
+
     fam = a.family
     ms = fam.measure
     print(f"{a.title}  (survey {a.survey_id})")
     print(f"family: {fam.name}")
-    print(f"measure: {ms.name} {ms.symbol}   units: {system.upper()}   verdict: {a.level.label}")
+    print(
+        Text.assemble(
+            f"measure: {ms.name} {ms.symbol}   units: {system.upper()}   {OVERALL_LEVEL}: ",
+            (a.level.label, level_style(a.level.label)),
+        )
+    )
     print(f"CAUTION: {CAUTION}")
     print()
     print(_factors(a))
@@ -82,9 +100,9 @@ def run(args) -> int:
                         "<" if s.governing is ls else "",
                     )
                 )
-            rows.append((s.station, None, "verdict", None, None, None, None, "", s.level.label))
+            rows.append((s.station, None, OVERALL_LEVEL, None, None, None, None, "", s.level.label))
         print(
-            render(
+            table(
                 (
                     "station",
                     f"x {symbol(P)}",
@@ -98,12 +116,13 @@ def run(args) -> int:
                 ),
                 rows,
                 f"Member {m.member} {m.label}: factored capacities ({system.upper()} units)",
+                {8: "level"},
             )
         )
         if m.summary:
             print()
             print(
-                render(
+                table(
                     ("case", "factor", "measure", "at", "limit state", "consequence"),
                     [
                         (
@@ -119,25 +138,28 @@ def run(args) -> int:
                     f"Member {m.member}: rating summary ({ms.name})",
                 )
             )
-        for table in girder_tables(m, system):
+        for text in girder_tables(m, system):
             print()
-            print(table)
-        worst = [f for s in m.stations for f in s.flags if f.level >= 2] + [
-            f for f in m.flags if f.level >= 2
+            print(text)
+        least = 0 if voice.verbose else 2  # --verbose: every flag, else from "engineer to review"
+        worst = [f for s in m.stations for f in s.flags if f.level >= least] + [
+            f for f in m.flags if f.level >= least
         ]
         if worst:
-            print("\nFlags for review:")
+            print("\nFlags:" if voice.verbose else "\nFlags for review:")
             for f in worst:
-                print(f"  [{f.level.label}] {f.subject}: {f.message}")
+                _flag_line(con, f)
     if a.flags:
         print("\nSurvey flags:")
         for f in a.flags:
-            print(f"  [{f.level.label}] {f.subject}: {f.message}")
-    if problems:
+            _flag_line(con, f)
+    if problems and not voice.quiet:
         print("\nSurvey notes and warnings:")
         for p in problems:
             print(f"  {p}")
-    print(
-        "\nEvery assumption with its source: asfound assess --json, or the report's assumptions page."
-    )
+    if not voice.quiet:
+        print(
+            "\nEvery assumption with its source: asfound assess --json, or the report's "
+            "assumptions page."
+        )
     return 0

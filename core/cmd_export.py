@@ -16,7 +16,7 @@ def register(sub: argparse._SubParsersAction) -> None:
         "output is never the store itself, another store, a section description or the "
         "file of another survey; an earlier export of the same survey is replaced.",
     )
-    p.add_argument("store", metavar="STORE", help="field store file")
+    p.add_argument("store", metavar="STORE", help="field store (.sqlite)")
     p.add_argument("-o", "--output", required=True, metavar="FILE", help="survey JSON file")
     p.add_argument(
         "--force",

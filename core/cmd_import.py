@@ -21,7 +21,13 @@ def register(sub: argparse._SubParsersAction) -> None:
         "or any other file is never replaced).",
     )
     p.add_argument("file", metavar="FILE", help="survey JSON file")
-    p.add_argument("-o", "--output", required=True, metavar="STORE", help="new store file")
+    p.add_argument(
+        "-o",
+        "--output",
+        required=True,
+        metavar="STORE",
+        help="new field store (.sqlite by convention)",
+    )
     p.add_argument("--who", default="import", help="name recorded in the edit history")
     p.set_defaults(func=handler)
 

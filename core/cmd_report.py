@@ -7,6 +7,7 @@ or a section description; an earlier asfound PDF is replaced, any other file onl
 a folder, every survey file (``*.json``) and field store in it is reported in turn with a
 progress bar on stderr and one summary line per survey on stdout; a bad file never stops
 the rest, and the exit status is 1 when any survey failed (they are listed at the end).
+``--quiet`` leaves out the progress and the lines of the surveys that went well.
 """
 
 from __future__ import annotations
@@ -17,11 +18,10 @@ from pathlib import Path
 
 from core import CAUTION
 from core.choices import add_arguments
+from core.console import Steps, Voice
 from core.errors import AsfoundError
 from core.outputs import check_output_folder
 from core.survey import is_store_file
-
-BAR = 24
 
 
 def register(sub: argparse._SubParsersAction) -> None:
@@ -63,18 +63,6 @@ def survey_files(folder: Path) -> list[Path]:
     return out
 
 
-def _bar(i: int, n: int, name: str) -> None:
-    done = BAR * i // max(n, 1)
-    line = f"[{'#' * done}{'.' * (BAR - done)}] {i}/{n} {name}"
-    if sys.stderr.isatty():
-        sys.stderr.write("\r\033[K" + line)
-        if i == n:
-            sys.stderr.write("\n")
-    else:
-        sys.stderr.write(line + "\n")
-    sys.stderr.flush()
-
-
 def _outputs(files: list[Path], outdir: Path) -> dict[Path, Path]:
     """A PDF path per input, distinct even when two inputs share a stem."""
     stems: dict[str, int] = {}
@@ -99,8 +87,10 @@ def run_folder(folder: Path, outdir: Path, units: str | None, args: argparse.Nam
     outdir.mkdir(parents=True, exist_ok=True)
     outs = _outputs(files, outdir)
     failed: list[tuple[str, str]] = []
+    voice = Voice.of(args)
+    bar = Steps(len(files), voice)
     for i, f in enumerate(files):
-        _bar(i, len(files), f.name)
+        bar.step(i, f.name)
         try:
             rep = build_report(
                 f, outs[f], units=units, args=args, force=getattr(args, "force", False)
@@ -111,8 +101,11 @@ def run_folder(folder: Path, outdir: Path, units: str | None, args: argparse.Nam
             print(f"FAILED  {f.name}: {type(e).__name__}: {msg}", flush=True)
             print(f"        no report written for {f.name}", flush=True)
             continue
-        print(f"ok      {f.name}: {rep.level.label}, {rep.pages} pages -> {rep.path}", flush=True)
-    _bar(len(files), len(files), "done")
+        if not voice.quiet:
+            print(
+                f"ok      {f.name}: {rep.level.label}, {rep.pages} pages -> {rep.path}", flush=True
+            )
+    bar.done()
     if failed:
         names = ", ".join(n for n, _ in failed)
         print(f"asfound: {len(failed)} of {len(files)} survey(s) failed: {names}", file=sys.stderr)
@@ -138,6 +131,7 @@ def handler(args: argparse.Namespace) -> int:
         print(f"asfound: error: {e}", file=sys.stderr)
         print(f"asfound: no report written ({out} untouched)", file=sys.stderr)
         return 2
-    print(f"{src}: {rep.level.label}; {rep.pages} pages -> {rep.path}")
-    print(CAUTION, file=sys.stderr)
+    if not Voice.of(args).quiet:
+        print(f"{src}: {rep.level.label}; {rep.pages} pages -> {rep.path}")
+        print(CAUTION, file=sys.stderr)
     return 0

@@ -1,4 +1,5 @@
-"""Plain-text tables for the terminal, generated from rows (no hand-written layouts)."""
+"""Tables for the terminal, generated from rows: numbers as text (:func:`fmt`) and a table as
+plain text (:func:`render`), laid out by ``rich`` (see :mod:`core.console`)."""
 
 from __future__ import annotations
 
@@ -23,27 +24,14 @@ def fmt(v: object, digits: int = 4) -> str:
 
 
 def render(header: Sequence[str], rows: Sequence[Sequence[object]], title: str = "") -> str:
-    """A table with a header line and right-aligned numbers."""
-    cells = [[fmt(c) for c in r] for r in rows]
-    widths = [len(h) for h in header]
-    for r in cells:
-        for i, c in enumerate(r):
-            widths[i] = max(widths[i], len(c))
-    num = [
-        all(isinstance(r[i], int | float) for r in rows if r[i] is not None)
-        for i in range(len(header))
-    ]
+    """A table as plain text (rich's layout, no colour): a header line, numbers right-aligned."""
+    import io
 
-    def line(vals: Sequence[str]) -> str:
-        return "  ".join(
-            v.rjust(widths[i]) if num[i] and rows else v.ljust(widths[i])
-            for i, v in enumerate(vals)
-        ).rstrip()
+    from rich.console import Console
 
-    out = []
-    if title:
-        out.append(title)
-    out.append(line(list(header)))
-    out.append("  ".join("-" * w for w in widths))
-    out.extend(line(r) for r in cells)
-    return "\n".join(out)
+    from core.console import PIPE_WIDTH, table
+
+    buf = io.StringIO()
+    con = Console(file=buf, width=PIPE_WIDTH, color_system=None, no_color=True, soft_wrap=True)
+    con.print(table(header, rows, title))
+    return "\n".join(line.rstrip() for line in buf.getvalue().rstrip("\n").splitlines())

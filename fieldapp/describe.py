@@ -10,8 +10,8 @@ from fieldapp.names import line_name, part_name, place_name
 GIRDER_WORDS = {
     "D": "web depth",
     "tw": "web thickness",
-    "angle_h": "angle flat leg",
-    "angle_v": "angle upright leg",
+    "angle_h": "angle horizontal leg",
+    "angle_v": "angle vertical leg",
     "angle_t": "angle thickness",
     "covers_top": "top covers",
     "covers_bottom": "bottom covers",
@@ -35,10 +35,10 @@ def reading(r: dict, station: str = "") -> str:
 
 
 def cut(kind: str, b: dict, unit: str, station: str = "") -> str:
-    """ "loss band b1 on web, 250 to 400 mm (t 6 mm) at S2"; "hole p1 in web, ..."."""
+    """ "loss band b1 on web, 250 to 400 mm (t 6 mm) at S2"; "perforation p1 in web, ..."."""
     at = f" at {station}" if station else ""
     t = f" (t {num(b['t'])} {unit})" if kind == "band" and b.get("t") is not None else ""
-    word, prep = ("loss band", "on") if kind == "band" else ("hole", "in")
+    word, prep = ("loss band", "on") if kind == "band" else ("perforation", "in")
     return (
         f"{word} {b.get('id', '?')} {prep} {part_name(b.get('part', '?'))}, "
         f"{num(b.get('lo'))} to {num(b.get('hi'))} {unit}{t}{at}"

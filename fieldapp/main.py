@@ -26,7 +26,7 @@ def build_parser() -> argparse.ArgumentParser:
         metavar="FOLDER",
         help=f"folder of the surveys (default: ${ENV_DIR} or a per-user data folder)",
     )
-    p.add_argument("--survey", metavar="STORE", help="open this survey store at start")
+    p.add_argument("--survey", metavar="STORE", help="open this field store at start")
     return p
 
 
@@ -73,7 +73,7 @@ def main(argv: list[str] | None = None) -> int:
         return 2
     survey = Path(args.survey).resolve() if args.survey else None
     if survey is not None and not survey.is_file():
-        print(f"asfound-field: error: {survey}: no such survey store", file=sys.stderr)
+        print(f"asfound-field: error: {survey}: no such field store", file=sys.stderr)
         return 2
     configure_kivy()
     from fieldapp.app import FieldApp

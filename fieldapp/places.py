@@ -20,8 +20,9 @@ import tempfile
 from dataclasses import asdict, dataclass
 from pathlib import Path
 
+from core.glossary import STORE_SUFFIX  # the one documented extension of a field store
+
 ENV_DIR = "ASFOUND_FIELD_DIR"
-STORE_SUFFIX = ".sqlite"
 PLACE_FILE = "fieldapp-place.json"
 
 

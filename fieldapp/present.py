@@ -9,18 +9,22 @@ from dataclasses import dataclass
 
 from core.assess import LimitState, StationResult
 from core.checks.flags import Flag, Level
+from core.glossary import level as level_term
 from core.units import show
 from fieldapp.names import readable
+from fieldapp.theme import MARK_FONT
 
 DASH = "-"
 
-#: a word and a mark for each flag level, so the level never rests on colour alone
-LEVEL_MARK = {
-    Level.OK: "OK",
-    Level.WATCH: "WATCH",
-    Level.REVIEW: "REVIEW",
-    Level.URGENT: "URGENT",
-}
+
+def esc(text: str) -> str:
+    """Text shown literally in a kivy label with markup on (kivy's escape_markup, no kivy)."""
+    return text.replace("&", "&amp;").replace("[", "&bl;").replace("]", "&br;")
+
+
+def level_mark(level: Level) -> str:
+    """Label markup of a level's shape (the glossary's glyph, the report's too) in its face."""
+    return f"[font={MARK_FONT}]{level_term(level).glyph}[/font]"
 
 
 @dataclass(frozen=True)
@@ -90,19 +94,22 @@ def worst_flag(sr: StationResult) -> Flag | None:
 
 
 def flag_line(flag: Flag | None) -> str:
-    """The level as a word, what the flag is about, and core's sentence."""
+    """Label markup: the level once (shape and words), what the flag is about, core's sentence."""
     if flag is None:
-        return "no findings"
+        return "no flags"
     about = readable(flag.subject.split(" / ")[-1])
-    return f"[{LEVEL_MARK[flag.level]}] {about}: {readable(flag.message)}"
+    return (
+        f"{level_mark(flag.level)} {esc(flag.label)} · {esc(about)}: {esc(readable(flag.detail))}"
+    )
 
 
 def flag_head(flag: Flag | None) -> str:
-    """The level as a word and what the worst flag is about (its sentence is on Results)."""
+    """Label markup: the level (shape and words) and what the worst flag is about (its
+    sentence is on Results)."""
     if flag is None:
-        return "no findings"
+        return "no flags"
     about = readable(flag.subject.split(" / ")[-1])
-    return f"[{LEVEL_MARK[flag.level]}] {flag.level.label}: {about}"
+    return f"{level_mark(flag.level)} {esc(flag.label)}: {esc(about)}"
 
 
 def big(value: float) -> str:
@@ -118,7 +125,7 @@ def governing_line(sr: StationResult) -> str:
     if g is None:
         return "no limit state could be evaluated"
     rf = f", {g.rating.symbol} {rf_text(g.measure)}" if g.rating is not None else ""
-    return f"governs: {readable(g.name)}, as-found / as-built {ratio_text(g.ratio)}{rf}"
+    return f"governs: {readable(g.name)}, ratio {ratio_text(g.ratio)}{rf}"
 
 
 def loss_text(sr: StationResult, part: str) -> str:

@@ -2,8 +2,9 @@
 
 A stretch of the member is shown at a scale where rivets are a finger apart; an overview
 bar shows the whole member with every rivet that is not sound, and the stretch on view.
-Each rivet shows its state by letter and shape as well as colour (see ``theme.RIVET_LOOK``):
-S filled circle, L open circle, M open square, H filled square.
+Each rivet shows its state by letter and shape as well as colour, the glossary's
+(``core.glossary.RIVET_STATES``, the same as the report's map): S filled circle, L half-filled
+circle, M open circle, H filled square. A legend under the map names them.
 """
 
 from __future__ import annotations
@@ -19,7 +20,28 @@ from fieldapp import theme
 from fieldapp.names import line_name
 
 DOT_DP = 52  # a rivet's touch target
-LINE_LABEL_DP = 170  # width of the line names
+LINE_LABEL_DP = 200  # width of the line names (in words, two lines, and the counts)
+
+
+def draw_mark(state: str, cx: float, cy: float, d: float, ring: float) -> None:
+    """Draw the glossary's shape of rivet state ``state`` centred at (cx, cy), ``d`` across,
+    on the current canvas (inside a ``with canvas:`` block)."""
+    _letter, rgba, shape = theme.RIVET_LOOK[state]
+    x, y = cx - d / 2, cy - d / 2
+    if shape == "filled square":
+        Color(*rgba)
+        Rectangle(pos=(x, y), size=(d, d))
+        return
+    if shape == "filled circle":
+        Color(*rgba)
+        Ellipse(pos=(x, y), size=(d, d))
+        return
+    Color(*theme.FIELD)
+    Ellipse(pos=(x, y), size=(d, d))
+    Color(*rgba)
+    if shape == "half-filled circle":
+        Ellipse(pos=(x, y), size=(d, d), angle_start=180, angle_end=360)
+    Line(circle=(cx, cy, d / 2), width=ring)
 
 
 class RivetDot(ButtonBehavior, Label):
@@ -37,25 +59,54 @@ class RivetDot(ButtonBehavior, Label):
         self._draw()
 
     def _draw(self, *_a) -> None:
-        letter, rgba, filled = theme.RIVET_LOOK[self.state_name]
-        square = self.state_name in ("missing", "headless")
+        letter, _rgba, shape = theme.RIVET_LOOK[self.state_name]
         self.text = letter
-        self.color = theme.PAPER if filled else theme.INK
+        self.color = theme.PAPER if shape.startswith("filled") else theme.INK
         d = min(self.width, self.height) - dp(8)
-        x, y = self.center_x - d / 2, self.center_y - d / 2
         self.canvas.before.clear()
         with self.canvas.before:
-            Color(*rgba)
-            if filled:
-                (Rectangle if square else Ellipse)(pos=(x, y), size=(d, d))
-            else:
-                Color(*theme.FIELD)
-                (Rectangle if square else Ellipse)(pos=(x, y), size=(d, d))
-                Color(*rgba)
-                if square:
-                    Line(rectangle=(x, y, d, d), width=dp(2.5))
-                else:
-                    Line(circle=(self.center_x, self.center_y, d / 2), width=dp(2.5))
+            draw_mark(self.state_name, self.center_x, self.center_y, d, dp(2.5))
+
+
+class RivetLegend(Widget):
+    """What each rivet mark means, drawn with the map's own shapes (glossary words)."""
+
+    def __init__(self, **kw) -> None:
+        super().__init__(**kw)
+        self.bind(pos=self._draw, size=self._draw)
+
+    def _draw(self, *_a) -> None:
+        from kivy.core.text import Label as CoreLabel
+
+        self.canvas.clear()
+        n = len(theme.RIVET_LOOK)
+        cell = self.width / max(n, 1)
+        d = min(dp(30), self.height - dp(6))
+        for i, (state, (letter, _c, _shape)) in enumerate(theme.RIVET_LOOK.items()):
+            x = self.x + i * cell + dp(4)
+            with self.canvas:
+                draw_mark(state, x + d / 2, self.center_y, d, dp(2))
+            mark = CoreLabel(
+                text=letter,
+                font_size=sp(theme.SMALL_SP),
+                bold=True,
+                color=theme.PAPER if _shape.startswith("filled") else theme.INK,
+            )
+            mark.refresh()
+            lab = CoreLabel(text=state, font_size=sp(theme.SMALL_SP), color=theme.INK)
+            lab.refresh()
+            with self.canvas:
+                Color(1, 1, 1, 1)
+                mw, mh = mark.texture.size
+                Rectangle(
+                    texture=mark.texture,
+                    pos=(x + d / 2 - mw / 2, self.center_y - mh / 2),
+                    size=(mw, mh),
+                )
+                tw, th = lab.texture.size
+                Rectangle(
+                    texture=lab.texture, pos=(x + d + dp(6), self.center_y - th / 2), size=(tw, th)
+                )
 
 
 class Overview(Widget):
@@ -89,9 +140,8 @@ class Overview(Widget):
             Rectangle(pos=(self.x, self.y), size=self.size)
             Color(*theme.INK)
             Line(points=[self._x(0), mid, self._x(self.span), mid], width=dp(2))
-            for p, state in self.marks:
-                Color(*theme.RIVET_LOOK[state][1])
-                Rectangle(pos=(self._x(p) - dp(1.5), mid - dp(12)), size=(dp(3), dp(24)))
+            for p, state in self.marks:  # the map's shapes, small
+                draw_mark(state, self._x(p), mid, dp(14), dp(1.5))
             Color(*theme.INK)
             x0, x1 = self._x(self.start), self._x(self.start + self.width_shown)
             Line(rectangle=(x0, self.y + dp(3), max(x1 - x0, dp(4)), self.height - dp(6)), width=2)
@@ -164,7 +214,7 @@ class RivetRow(Widget):
     def __init__(self, rivets: list[tuple[float, str]], on_tap, **kw) -> None:
         super().__init__(**kw)
         self.size_hint_y = None
-        self.height = dp(DOT_DP + 6)
+        self.height = dp(DOT_DP + 20)  # three lines of small text beside the rivets
         self.name_label = Label(
             text="", color=theme.INK, font_size=sp(theme.SMALL_SP), halign="left", bold=True
         )
@@ -196,4 +246,4 @@ class RivetRow(Widget):
                 self.remove_widget(d)
             if show:
                 x = x0 + w * (d.position - self.start) / max(self.width_shown, 1e-9)
-                d.pos = (x - dp(DOT_DP) / 2, self.y + dp(3))
+                d.pos = (x - dp(DOT_DP) / 2, self.y + dp(10))

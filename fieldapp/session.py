@@ -219,7 +219,7 @@ class Session:
             raise InputError(f"an entry of kind {kind!r} cannot be withdrawn here")
 
     def correct_cut(self, kind: str, ident: str, lo: str, hi: str, t: str = "") -> Saved:
-        """New limits (and for a band the thickness) of a loss band or a hole."""
+        """New limits (and for a band the thickness) of a loss band or a perforation."""
         changes = {"lo": parse_number(lo, "from"), "hi": parse_number(hi, "to")}
         if kind == "band":
             changes["t"] = parse_number(t, "band thickness") if t.strip() else None
@@ -237,7 +237,11 @@ class Session:
         return self.store.add_band(self.member_id, self.station_id, band, self.who)
 
     def add_perforation(self, part: str, lo: str, hi: str) -> Saved:
-        perf = {"part": part, "lo": parse_number(lo, "hole from"), "hi": parse_number(hi, "to")}
+        perf = {
+            "part": part,
+            "lo": parse_number(lo, "perforation from"),
+            "hi": parse_number(hi, "to"),
+        }
         return self.store.add_perforation(self.member_id, self.station_id, perf, self.who)
 
     def set_note(self, text: str) -> Saved | None:

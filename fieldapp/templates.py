@@ -58,8 +58,8 @@ GIRDER_START: dict[str, dict] = {
 GIRDER_FIELDS: tuple[tuple[str, str], ...] = (
     ("D", "Web depth"),
     ("tw", "Web thickness"),
-    ("angle_h", "Angle leg, flat"),
-    ("angle_v", "Angle leg, on web"),
+    ("angle_h", "Angle, horizontal leg"),
+    ("angle_v", "Angle, vertical leg"),
     ("angle_t", "Angle thickness"),
     ("cover_top_b", "Top cover width"),
     ("cover_top_t", "Top cover thick"),

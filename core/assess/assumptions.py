@@ -102,7 +102,7 @@ def assumptions(
             PRACTICE,
         ),
         Assumption(
-            "web shear, panel (buckling and yield)",
+            "web shear (buckling and yield)",
             "the panel-representative web thickness: the "
             + ("least" if opts.thickness_policy == "minimum" else "mean")
             + " of the whole-web readings of every station in the panel between stiffeners "
@@ -110,7 +110,7 @@ def assumptions(
             ENGINEER + " (basis stated by asfound; the family's clause for the panel)",
         ),
         Assumption(
-            "web shear, local (bands, perforations, thinning)",
+            "local web shear (bands, perforations, thinning)",
             "at every station whose web has loss: (a) the cut-average shear stress VQ/(I t) at "
             "the thinnest cut of the as-found section reaching the family's shear yield "
             "stress (elastic, no redistribution: conservative; not applicable where the web is "

@@ -113,6 +113,26 @@ def _one_of(v: Any, allowed: tuple[str, ...], what: str, *, allow_none: bool = F
 
 
 _KEYS = {f.name for f in fields(AssessOptions)}
+#: names of an option in files (the left one is read as the right one): the rating level is
+#: ``rating_level`` (a flag level is another thing); ``level`` is still read from older files
+ALIASES = {"rating_level": "level"}
+
+
+def canonical(d: Mapping[str, Any] | None, where: str = "") -> dict[str, Any]:
+    """``d`` with each option under the one name the code uses (``rating_level`` -> ``level``).
+
+    Raises:
+        InputError: both names of one option given.
+    """
+    out = dict(d or {})
+    for new, old in ALIASES.items():
+        if new in out:
+            if old in out:
+                raise InputError(
+                    f"options {new!r} and {old!r} are one option; give one", where=where
+                )
+            out[old] = out.pop(new)
+    return out
 
 
 def options_from_dict(d: Mapping[str, Any], where: str = "") -> AssessOptions:
@@ -125,9 +145,11 @@ def options_from_dict(d: Mapping[str, Any], where: str = "") -> AssessOptions:
     """
     if not isinstance(d, Mapping):
         raise InputError(f"options must be an object, not {type(d).__name__}", where=where)
+    d = canonical(d, where)
     unknown = sorted(set(d) - _KEYS)
     if unknown:
-        raise InputError(f"unknown option(s) {unknown}; known: {sorted(_KEYS)}", where=where)
+        known = sorted((_KEYS - set(ALIASES.values())) | set(ALIASES))
+        raise InputError(f"unknown option(s) {unknown}; known: {known}", where=where)
     kw = dict(d)
     if "thresholds" in kw and not isinstance(kw["thresholds"], FlagThresholds):
         th = kw["thresholds"]
@@ -152,7 +174,7 @@ def merged(*layers: Mapping[str, Any] | None) -> dict[str, Any]:
     ``thresholds`` merge symbol by symbol."""
     out: dict[str, Any] = {}
     for layer in layers:
-        for k, v in (layer or {}).items():
+        for k, v in canonical(layer).items():
             if k in ("factors", "thresholds") and isinstance(v, Mapping):
                 out[k] = {**out.get(k, {}), **v}
             else:

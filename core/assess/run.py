@@ -317,7 +317,7 @@ def member_summary(
                 group = ls.key.split(":")[0]
                 r = rate(ls, measure, eff, keys, by_key, mf, member.place(s.station))
                 if r is not None and (group not in worst or r.badness < worst[group][0].badness):
-                    worst[group] = (r, s.station, ls.name if group != "rivets" else "rivet lines")
+                    worst[group] = (r, s.station, ls.name if group != "rivets" else "rivets")
         if not worst:
             continue
         lf = measure.live_factor

@@ -71,7 +71,7 @@ def bending_resistance(
         CheckValue("gamma_M0", gM0, "dimensionless", "partial factor", "EN 1993-2 Table 6.1"),
     )
     return CapacityResult(
-        limit_state="bending resistance",
+        limit_state="bending",
         standard=STANDARD,
         edition=EDITION,
         clause=f"EN 1993-1-1 6.2.5, Eq. 6.13-6.15, class {section_class}"

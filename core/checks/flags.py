@@ -14,6 +14,7 @@ from dataclasses import dataclass
 from enum import IntEnum
 
 from core.errors import InputError
+from core.glossary import LEVELS
 
 
 class Level(IntEnum):
@@ -29,12 +30,7 @@ class Level(IntEnum):
         return _LABELS[self]
 
 
-_LABELS = {
-    Level.OK: "within limits",
-    Level.WATCH: "keep watching",
-    Level.REVIEW: "engineer to review",
-    Level.URGENT: "needs immediate attention",
-}
+_LABELS = {lv: LEVELS[lv].name for lv in Level}  # the glossary's names
 
 
 @dataclass(frozen=True)
@@ -97,6 +93,13 @@ class Flag:
     @property
     def label(self) -> str:
         return self.level.label
+
+    @property
+    def detail(self) -> str:
+        """The sentence without the level's words in front (for a line that shows the level
+        once, by its shape and words)."""
+        head = f"{self.level.label}: "
+        return self.message[len(head) :] if self.message.startswith(head) else self.message
 
 
 def _grade(value: float, w: float, r: float, u: float, *, rising: bool) -> tuple[Level, float]:

@@ -85,7 +85,7 @@ def local_web_shear(
     if tau_per_V is None:
         notes.append("VQ/It not applicable (the section is split): only the net plastic shear")
     return CapacityResult(
-        limit_state="web shear, local",
+        limit_state="local web shear",
         standard=standard,
         edition=edition,
         clause=clause,

@@ -258,20 +258,28 @@ def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 
 
 LIMIT_STATES = (
-    LimitStateSpec("web_shear", "web shear, panel (6.10.9)", shear_states),
-    LimitStateSpec("web_local", "web shear, local (6.10.9.2)", local_states),
+    LimitStateSpec("web_shear", "web shear (6.10.9)", shear_states),
+    LimitStateSpec("local_web_shear", "local web shear (6.10.9.2)", local_states),
     LimitStateSpec(
         "flange_yield", "flange yield (6.10.8.1.1, 6.10.8.3)", girder.flange_yield_states
     ),
-    LimitStateSpec("ltb", "lateral-torsional buckling (6.10.8.2.3)", girder.ltb_states),
-    LimitStateSpec("flb", "flange local buckling (6.10.8.2.2)", girder.flb_states),
-    LimitStateSpec("web_bend", "web bend-buckling (6.10.1.9.1), service", girder.web_bend_states),
-    LimitStateSpec("tension_flange", "tension flange at holes (6.10.1.8)", tension_flange_states),
+    LimitStateSpec(
+        "lateral_torsional_buckling", "lateral-torsional buckling (6.10.8.2.3)", girder.ltb_states
+    ),
+    LimitStateSpec(
+        "flange_local_buckling", "flange local buckling (6.10.8.2.2)", girder.flb_states
+    ),
+    LimitStateSpec(
+        "web_bend_buckling", "web bend-buckling (6.10.1.9.1), service", girder.web_bend_states
+    ),
+    LimitStateSpec(
+        "tension_flange_at_holes", "tension flange at holes (6.10.1.8)", tension_flange_states
+    ),
     LimitStateSpec("flexure", "flexure, the least of the above (6.10.8)", girder.flexure_states),
     LimitStateSpec("girder_end", "girder ends (6.10.11.2, D6.5)", girder.girder_end_states),
     LimitStateSpec("rivets", "rivet lines (MBE 6A.6.12.5.1, LRFD 6.13.2.9)", rivet_states),
     LimitStateSpec(
-        "fatigue", "fatigue, riveted details (MBE 7.2, LRFD 6.6.1.2)", girder.fatigue_states
+        "fatigue", "fatigue (riveted details; MBE 7.2, LRFD 6.6.1.2)", girder.fatigue_states
     ),
 )
 

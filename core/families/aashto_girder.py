@@ -47,7 +47,12 @@ from core.loads.models import KIP, AxleTrain
 from core.units import to_internal
 
 FT = to_internal(1.0, "ft", "length")
-FLEXURAL_KEYS = ("flange_yield", "ltb", "flb", "tension_flange")
+FLEXURAL_KEYS = (
+    "flange_yield",
+    "lateral_torsional_buckling",
+    "flange_local_buckling",
+    "tension_flange_at_holes",
+)
 
 
 def _lrfd(clause: str) -> str:
@@ -184,7 +189,15 @@ def ltb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
             phi_f=ctx.f("phi_f"),
             where=f"{ctx.where} / lateral-torsional buckling ({label})",
         )
-    return [moment_state("ltb", "lateral-torsional buckling", res["built"], res["found"], words)]
+    return [
+        moment_state(
+            "lateral_torsional_buckling",
+            "lateral-torsional buckling",
+            res["built"],
+            res["found"],
+            words,
+        )
+    ]
 
 
 def flb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -211,7 +224,11 @@ def flb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     note = (
         "each outstand of the compression flange (angle legs, cover plate edges) with its thickness"
     )
-    return [moment_state("flb", "flange local buckling", res["built"], res["found"], note)]
+    return [
+        moment_state(
+            "flange_local_buckling", "flange local buckling", res["built"], res["found"], note
+        )
+    ]
 
 
 def web_bend_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -235,7 +252,7 @@ def web_bend_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     Cb = b.Rr * flange_of(ctx, "built").Sxc
     Cf = f.Rr * flange_of(ctx, "found").Sxc
     ls = LimitState(
-        "web_bend",
+        "web_bend_buckling",
         "web bend-buckling (service, not rated)",
         "moment",
         b,

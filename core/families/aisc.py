@@ -194,15 +194,21 @@ def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 
 
 LIMIT_STATES = (
-    LimitStateSpec("web_shear", "web shear, panel (G2)", shear_states),
-    LimitStateSpec("web_local", "web shear, local (G2.1)", local_states),
-    LimitStateSpec("flange_yield", "flange yielding (F4 / F5)", girder.flange_yield_states),
-    LimitStateSpec("ltb", "lateral-torsional buckling (F4.2 / F5.2)", girder.ltb_states),
-    LimitStateSpec("flb", "flange local buckling (F4.3 / F5.3)", girder.flb_states),
-    LimitStateSpec("tension_flange", "tension flange at holes (F13.1)", tension_flange_states),
+    LimitStateSpec("web_shear", "web shear (G2)", shear_states),
+    LimitStateSpec("local_web_shear", "local web shear (G2.1)", local_states),
+    LimitStateSpec("flange_yield", "flange yield (F4 / F5)", girder.flange_yield_states),
+    LimitStateSpec(
+        "lateral_torsional_buckling", "lateral-torsional buckling (F4.2 / F5.2)", girder.ltb_states
+    ),
+    LimitStateSpec(
+        "flange_local_buckling", "flange local buckling (F4.3 / F5.3)", girder.flb_states
+    ),
+    LimitStateSpec(
+        "tension_flange_at_holes", "tension flange at holes (F13.1)", tension_flange_states
+    ),
     LimitStateSpec("flexure", "flexure, the least of the above (F4 / F5)", girder.flexure_states),
     LimitStateSpec("girder_end", "girder ends (J7, J10)", girder.girder_end_states),
-    LimitStateSpec("rivets", "rivet lines (J3, Appendix 5)", rivet_states),
+    LimitStateSpec("rivets", "rivets (J3, Appendix 5)", rivet_states),
 )
 
 

@@ -38,7 +38,12 @@ from core.families.girder import (
     web_at_bearing,
 )
 
-FLEXURAL_KEYS = ("flange_yield", "ltb", "flb", "tension_flange")
+FLEXURAL_KEYS = (
+    "flange_yield",
+    "lateral_torsional_buckling",
+    "flange_local_buckling",
+    "tension_flange_at_holes",
+)
 
 
 def _src(clause: str) -> str:
@@ -106,7 +111,7 @@ def flange_yield_states(ctx: StationContext, done: tuple = ()) -> list[LimitStat
         f"flange yielding on the gross section, {ctx.compression} flange in compression, hc to "
         "the compression flange's rivet line; holes only in the tension flange check"
     )
-    return [moment_state("flange_yield", "flange yielding", res["built"], res["found"], note)]
+    return [moment_state("flange_yield", "flange yield", res["built"], res["found"], note)]
 
 
 def ltb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -132,7 +137,15 @@ def ltb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
         lb: lateral_torsional_buckling(section(ctx, lb), Lb=Lb, Cb=Cb, phi_b=ctx.f("phi_b"))
         for lb in ("built", "found")
     }
-    return [moment_state("ltb", "lateral-torsional buckling", res["built"], res["found"], words)]
+    return [
+        moment_state(
+            "lateral_torsional_buckling",
+            "lateral-torsional buckling",
+            res["built"],
+            res["found"],
+            words,
+        )
+    ]
 
 
 def flb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -143,7 +156,11 @@ def flb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
         els = flange_elements(ctx.defn, loss, compression=ctx.compression, web=ctx.web.web_id)
         res[lb] = flange_local_buckling(section(ctx, lb), els, phi_b=ctx.f("phi_b"))
     note = "each outstand of the compression flange (angle legs, cover plate edges) as found"
-    return [moment_state("flb", "flange local buckling", res["built"], res["found"], note)]
+    return [
+        moment_state(
+            "flange_local_buckling", "flange local buckling", res["built"], res["found"], note
+        )
+    ]
 
 
 def flexure_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:

@@ -59,7 +59,9 @@ def tension_flange(ctx: StationContext, check: HolesCheck, note: str) -> list[Li
             return []
         out[label] = check(st, An, Ag, f"{ctx.where} / tension flange ({label})")
     (b, Mb), (f, Mf) = out["built"], out["found"]
-    return [moment_state("tension_flange", "tension flange at holes", b, f, note, (Mb, Mf))]
+    return [
+        moment_state("tension_flange_at_holes", "tension flange at holes", b, f, note, (Mb, Mf))
+    ]
 
 
 @dataclass(frozen=True)
@@ -108,7 +110,7 @@ def panel_shear(ctx: StationContext, check: ShearCheck) -> LimitState:
     f = check(ctx.found, ctx.tw_panel, "found")
     ls = LimitState(
         "web_shear",
-        "web shear, panel",
+        "web shear",
         "force",
         b,
         f,
@@ -162,8 +164,8 @@ def local_shear(
     if not ctx.found.shear_applicable:
         note += "; web cut through: VQ/It not applicable (flagged for the engineer)"
     ls = LimitState(
-        "web_local",
-        "web shear, local",
+        "local_web_shear",
+        "local web shear",
         "force",
         b,
         f,
@@ -229,7 +231,7 @@ def rivet_groups(ctx: StationContext, check: RivetCheck) -> list[LimitState]:
         assert worst is not None
         rb, rf = results[worst[1]]
         ids = [ln.id for ln in group]
-        name = "rivet line " + ids[0] if k == 1 else "rivet lines " + " + ".join(ids)
+        name = "rivets, line " + ids[0] if k == 1 else "rivets, lines " + " + ".join(ids)
         note = "shear flow resistance sum of (n/k) phi Rn / gap: " + "; ".join(parts)
         if no_path:
             note += f"; no effective rivet near the station on {', '.join(no_path)}"

@@ -256,7 +256,7 @@ def bending_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     )
     if cf != cb:
         note += ": the loss changed the class"
-    return [moment_state("bending", "bending resistance", b, f, note)]
+    return [moment_state("bending", "bending", b, f, note)]
 
 
 def tension_flange_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -320,7 +320,7 @@ def interaction_states(ctx: StationContext, done: tuple = ()) -> list[LimitState
         f"min(Eq. 7.1 for V_Ed, Mc,Rd): {f.notes[0]}; Mpl,Rd of the gross section, Mf,Rd of "
         "the flanges alone"
     )
-    return [moment_state("interaction", "bending and shear", b, f, note, (b.Rn, f.Rn))]
+    return [moment_state("bending_and_shear", "bending and shear", b, f, note, (b.Rn, f.Rn))]
 
 
 def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
@@ -342,24 +342,26 @@ def rivet_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 
 LIMIT_STATES = (
     LimitStateSpec("web_shear", "web shear (EN 1993-1-5 5.2-5.4)", shear_states),
-    LimitStateSpec("web_local", "web shear, local (EN 1993-1-1 6.2.6)", local_states),
-    LimitStateSpec("bending", "bending resistance (EN 1993-1-1 6.2.5, 1-5 4.4)", bending_states),
+    LimitStateSpec("local_web_shear", "local web shear (EN 1993-1-1 6.2.6)", local_states),
+    LimitStateSpec("bending", "bending (EN 1993-1-1 6.2.5, 1-5 4.4)", bending_states),
     LimitStateSpec(
-        "ltb",
+        "lateral_torsional_buckling",
         "lateral-torsional buckling (EN 1993-1-1 6.3.2, EN 1993-2 6.3.4.2)",
         girder.ltb_states,
     ),
     LimitStateSpec(
-        "tension_flange", "tension flange at holes (EN 1993-1-1 6.2.5(4))", tension_flange_states
+        "tension_flange_at_holes",
+        "tension flange at holes (EN 1993-1-1 6.2.5(4))",
+        tension_flange_states,
     ),
-    LimitStateSpec("interaction", "bending and shear (EN 1993-1-5 7.1)", interaction_states),
+    LimitStateSpec("bending_and_shear", "bending and shear (EN 1993-1-5 7.1)", interaction_states),
     LimitStateSpec("flexure", "flexure, the least of the above", girder.flexure_states),
     LimitStateSpec(
         "girder_end", "girder ends (EN 1993-1-5 9.4, Section 6)", girder.girder_end_states
     ),
     LimitStateSpec("rivets", "rivet lines (EN 1993-1-8 Table 3.4)", rivet_states),
     LimitStateSpec(
-        "fatigue", "fatigue, riveted details (EN 1993-1-9, EN 1993-2 9.5.3)", girder.fatigue_states
+        "fatigue", "fatigue (riveted details; EN 1993-1-9, EN 1993-2 9.5.3)", girder.fatigue_states
     ),
 )
 

@@ -42,7 +42,12 @@ from core.families.girder import (
 )
 from core.loads.models import LM71
 
-FLEXURAL_KEYS = ("bending", "ltb", "tension_flange", "interaction")
+FLEXURAL_KEYS = (
+    "bending",
+    "lateral_torsional_buckling",
+    "tension_flange_at_holes",
+    "bending_and_shear",
+)
 MEM = " (from memory)"
 #: design life over which the damage equivalent range stands for 2 x 10^6 cycles, years
 DESIGN_LIFE = 100.0
@@ -140,7 +145,15 @@ def ltb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
                 f"unbraced segment {a / 1000:.4g} to {bb / 1000:.4g} m ({bw}); Mcr with C1 = 1, "
                 "load at the shear centre; Wy of the class"
             )
-    return [moment_state("ltb", "lateral-torsional buckling", res["built"], res["found"], words)]
+    return [
+        moment_state(
+            "lateral_torsional_buckling",
+            "lateral-torsional buckling",
+            res["built"],
+            res["found"],
+            words,
+        )
+    ]
 
 
 def flexure_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:

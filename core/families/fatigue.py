@@ -44,7 +44,7 @@ def fatigue_state(
     (db, rb), (dfound, rf) = out["built"], out["found"]
     dem = demand(dfound)
     ratio = dem / rf.Rr if rf.Rr > 0 else float("inf")
-    subj = f"{ctx.where} / fatigue, riveted detail"
+    subj = f"{ctx.where} / fatigue (riveted detail)"
     if rf.infinite_life:
         flag = Flag(
             Level.OK,
@@ -83,7 +83,7 @@ def fatigue_state(
     }
     ls = LimitState(
         "fatigue",
-        "fatigue, riveted detail",
+        "fatigue (riveted detail)",
         "stress",
         rb,
         rf,

@@ -360,7 +360,7 @@ def girder_ends(
                     ctx,
                     sup,
                     key,
-                    f"bearing stiffener {st.id}: {what} (support {sup.id})",
+                    f"stiffener {what}: {st.id} at support {sup.id}",
                     partial(fn, ctx, st, None, ctx.tw_nominal, f"{w} {what}"),
                     partial(fn, ctx, st, loss, tw_k, f"{w} {what} (as found)"),
                     note,

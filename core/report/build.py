@@ -25,7 +25,7 @@ from core.survey import Problem, Survey
 
 @dataclass(frozen=True)
 class Report:
-    """A written report: where, how many pages, the verdict, and where figures landed."""
+    """A written report: where, how many pages, the overall flag level, and where figures landed."""
 
     path: Path
     pages: int
@@ -48,7 +48,7 @@ def story(
     out = cover.cover(st, survey, a, src, system, width)
     other = [p for p in problems if not any(f"member {m.member!r}" in p.where for m in a.members)]
     if other:
-        out.append(Paragraph("Other findings of the survey's validation", st.h2))
+        out.append(Paragraph("Other problems found by the survey's validation", st.h2))
         out += [Paragraph(f"<b>{esc(p.level)}</b>: {esc(p.message)}", st.small) for p in other]
     for m in a.members:
         out.append(PageBreak())

@@ -1,4 +1,4 @@
-"""The cover: identity of the survey, the overall verdict, the summary per member and the
+"""The cover: identity of the survey, the overall flag level, the summary per member and the
 cautions."""
 
 from __future__ import annotations
@@ -11,6 +11,8 @@ from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 from core import CAUTION, __version__
 from core.assess.results import Assessment, MemberResult, StationResult
 from core.checks.flags import Level
+from core.glossary import OVERALL_LEVEL
+from core.names import annotated
 from core.report.fmt import position, position_label, ratio, rf, system_name
 from core.report.source import Source
 from core.report.styles import (
@@ -66,11 +68,12 @@ def lowest(m: MemberResult, attr: str) -> tuple[float | None, str]:
                     continue
                 k = v
             if key is None or k < key:
-                best, key = (v, f"{s.station}, {ls.name}"), k
+                best, key = (v, f"{s.station}, {annotated(ls.name)}"), k
     return best
 
 
-def verdict_sentence(level: Level) -> str:
+def level_sentence(level: Level) -> str:
+    """What the overall flag level says, in one sentence."""
     return {
         Level.OK: "Every check is within the thresholds set for this survey.",
         Level.WATCH: "Some results call for keeping watch at the next inspection.",
@@ -149,17 +152,17 @@ def cover(
         )
     )
     out += [t, Spacer(1, 10)]
-    # verdict
+    # the overall flag level
     lv = a.level
     n = sum(1 for f in a.all_flags() if f.level == lv)
     v = Table(
         [
-            [Paragraph("Overall verdict", st.head)],
-            [Paragraph(level_markup(lv), st.verdict)],
+            [Paragraph(esc(OVERALL_LEVEL.capitalize()), st.head)],
+            [Paragraph(level_markup(lv), st.overall)],
             [
                 Paragraph(
-                    f"{esc(verdict_sentence(lv))} {n} finding(s) at this level; the worst "
-                    "level of all flags decides the verdict.",
+                    f"{esc(level_sentence(lv))} {n} flag(s) at this level; the worst "
+                    f"level of all flags decides the {OVERALL_LEVEL}.",
                     st.body,
                 )
             ],
@@ -181,7 +184,7 @@ def cover(
         out.append(Spacer(1, 4))
         out += [
             Paragraph(
-                f"{level_markup(f.level, bold=False)} {esc(f.message[len(f.level.label) :].lstrip(': '))}",
+                f"{level_markup(f.level, bold=False)} {esc(f.detail)}",
                 st.small,
             )
             for f in a.flags
@@ -205,7 +208,7 @@ def summary(st: Styles, a: Assessment, system: str, width: float) -> list:
             [
                 m.member,
                 f"{ws.station} (x = {position(ws.x, system)} {pu})" if ws else "–",
-                gov.name if gov else "–",
+                annotated(gov.name) if gov else "–",
                 ratio(lr),
                 rf(lf),
                 level_markup(m.level, bold=False),

@@ -6,6 +6,7 @@ from reportlab.platypus import Paragraph, Spacer
 
 from core.assess.results import MemberResult
 from core.checks.flags import Flag, Level
+from core.names import annotated
 from core.report.fmt import num, position, position_label, unit_label, value
 from core.report.styles import Markup, Styles, esc, level_markup
 from core.report.tables import caption, grid
@@ -134,7 +135,7 @@ def validation(st: Styles, problems, m: MemberResult, source: str) -> list:
 
 def _subject(subject: str, member: str, station: str | None) -> str:
     pre = f"member {member!r} / "
-    s = subject[len(pre) :] if subject.startswith(pre) else subject
+    s = annotated(subject[len(pre) :] if subject.startswith(pre) else subject)
     if station is not None:
         pre = f"station {station!r} / "
         s = s[len(pre) :] if s.startswith(pre) else s
@@ -172,7 +173,7 @@ def flags(st: Styles, m: MemberResult, system: str, width: float) -> list:
     ]
     if rows:
         w = [0.08, 0.22, 0.7]
-        out.append(grid(st, ["station", "about", "finding"], rows, [width * x for x in w]))
+        out.append(grid(st, ["station", "about", "flag"], rows, [width * x for x in w]))
     else:
         out.append(Paragraph("No flag above 'within limits'.", st.body))
     out.append(

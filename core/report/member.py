@@ -6,12 +6,13 @@ from __future__ import annotations
 from reportlab.platypus import CondPageBreak, KeepTogether, Paragraph, Spacer, Table, TableStyle
 
 from core.assess.results import MemberResult, StationResult
+from core.glossary import RIVET_STATES
 from core.report import findings, rating
 from core.report.drawing import flange_windows, section_drawing
 from core.report.fmt import position, position_label, ratio, rf, system_name, with_unit
 from core.report.girderpages import fatigue_lives, girder_ends, stiffener_tables
 from core.report.page import PageInfo, Tracked
-from core.report.rivetmap import ineffective_rows, rivet_map
+from core.report.rivetmap import LETTER, ineffective_rows, rivet_map
 from core.report.styles import LOSS, PERF, STEEL, Styles, esc, level_markup
 from core.report.tables import (
     capacity_tables,
@@ -217,9 +218,12 @@ def member_pages(
             Paragraph("Rivet lines along the member", st.h2),
             Tracked(rivet_map(m, system, width), "rivet-map", info),
             Paragraph(
-                "One row per rivet line; a mark per rivet. Not effective: M missing (circle), "
-                "L loose (triangle), H headless (filled square); neighbouring letters are "
-                "merged with a count (M2 = two missing).",
+                "One row per rivet line; a mark per rivet, the same marks as on the tablet. "
+                + "; ".join(
+                    f"{t.name}: {t.shape}" + (f", {t.letter}" if k != "sound" else "")
+                    for k, t in RIVET_STATES.items()
+                )
+                + ". Neighbouring letters are merged with a count (M2 = two missing).",
                 st.caption,
             ),
         ]
@@ -230,8 +234,9 @@ def member_pages(
             out.append(
                 caption(st, f"Rivets not effective, positions along the member ({pu})", system)
             )
-            h = ["rivet line", "M missing", "L loose", "H headless", f"longest gap ({pu})"]
-            out.append(grid(st, h, rows, [width * x for x in (0.16, 0.24, 0.24, 0.2, 0.16)], (4,)))
+            h = ["rivet line", *(f"{t} {RIVET_STATES[k].name}" for k, t in LETTER.items())]
+            h.append(f"longest gap ({pu})")
+            out.append(grid(st, h, rows, [width * x for x in (0.28, 0.2, 0.2, 0.18, 0.14)], (4,)))
     if m.stations:
         out.append(CondPageBreak(200))
         out.append(Paragraph("Section properties by station", st.h2))

@@ -5,6 +5,7 @@ from __future__ import annotations
 from reportlab.platypus import CondPageBreak, Paragraph
 
 from core.assess.results import MemberResult
+from core.names import annotated
 from core.report.fmt import position, position_label, rf, unit_label, value
 from core.report.styles import MUTED, Styles
 from core.report.tables import caption, grid
@@ -28,7 +29,7 @@ def summary(st: Styles, m: MemberResult, system: str, width: float, measure) -> 
                 r.factor if first else "",
                 f"{r.symbol} {rf(r.value)}",
                 r.station,
-                r.limit_state,
+                annotated(r.limit_state),
                 r.consequence or ("–" if first else ""),
             ]
         )

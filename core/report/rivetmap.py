@@ -1,45 +1,50 @@
 """The rivet line map: one row per rivet line along the member, one mark per rivet.
 
-Sound rivets are small dots; a missing rivet is an open circle lettered M, a loose one a
-triangle lettered L, a headless one a square lettered H (shape and letter, never colour
-alone). The longest gap between effective rivets of each line is bracketed below its row,
-and the stations are marked along the axis.
+Every rivet is drawn with the glossary's shape of its state (``core.glossary.RIVET_STATES``,
+the same as on the tablet): sound a filled circle, loose a half-filled circle, missing an
+open circle (the empty hole), headless a filled square; the rivets that are not sound are
+lettered as well (L, M, H) and coloured. Shape and letter carry the state without colour. Each
+row names its line by id and in words. The longest gap between effective rivets of each line
+is bracketed below its row, the stations are marked along the axis, and a legend is under
+every map.
 """
 
 from __future__ import annotations
 
-from reportlab.graphics.shapes import Circle, Drawing, Line, Polygon, Rect, String
+from reportlab.graphics.shapes import Circle, Drawing, Line, Rect, String, Wedge
+from reportlab.lib import colors
 from reportlab.pdfbase.pdfmetrics import stringWidth
 
 from core.assess.results import MemberResult
+from core.glossary import RIVET_STATES
+from core.names import labelled, line_name
 from core.report.fmt import position, position_label, tick
-from core.report.styles import ACCENT, INK, MUTED, PERF, RULE, SANS, SANS_BOLD, STEEL, text
+from core.report.styles import ACCENT, INK, MUTED, RIVET_COLOUR, RULE, SANS, SANS_BOLD, text
 from core.report.tauplot import ticks
 from core.units import from_internal
 
-LETTER = {"missing": "M", "loose": "L", "headless": "H"}
+#: the letters of the states that are not sound, in the order of the tables
+LETTER = {k: RIVET_STATES[k].letter for k in ("missing", "loose", "headless")}
 ROW = 26.0
-LABEL_W = 92.0
+LABEL_W = 112.0
 
 
-def _mark(state: str, x: float, y: float) -> list:
-    r = 2.6
-    if state == "missing":
-        return [Circle(x, y, r, fillColor=None, strokeColor=PERF, strokeWidth=0.9)]
-    if state == "loose":
+def _mark(state: str, x: float, y: float, r: float = 2.6) -> list:
+    """The glossary's shape of ``state`` centred at (x, y), radius ``r`` points (a sound rivet
+    is drawn smaller so that the others stand out)."""
+    c = RIVET_COLOUR[state]
+    shape = RIVET_STATES[state].shape
+    if shape == "filled square":
+        h = r * 0.85
+        return [Rect(x - h, y - h, 2 * h, 2 * h, fillColor=c, strokeColor=c, strokeWidth=0.5)]
+    if shape == "half-filled circle":
         return [
-            Polygon(
-                [x - r, y - r * 0.85, x + r, y - r * 0.85, x, y + r],
-                fillColor=None,
-                strokeColor=PERF,
-                strokeWidth=0.9,
-            )
+            Circle(x, y, r, fillColor=colors.white, strokeColor=c, strokeWidth=0.9),
+            Wedge(x, y, r, 90, 270, fillColor=c, strokeColor=None),
         ]
-    if state == "headless":
-        return [
-            Rect(x - r * 0.85, y - r * 0.85, 1.7 * r, 1.7 * r, fillColor=PERF, strokeColor=PERF)
-        ]
-    return [Circle(x, y, 0.75, fillColor=STEEL, strokeColor=None)]
+    if shape == "open circle":
+        return [Circle(x, y, r, fillColor=colors.white, strokeColor=c, strokeWidth=0.9)]
+    return [Circle(x, y, max(r * 0.4, 0.75), fillColor=c, strokeColor=None)]
 
 
 def _clusters(items: list[tuple[float, str]], gap: float) -> list[tuple[float, str]]:
@@ -120,12 +125,15 @@ def rivet_map(member: MemberResult, system: str, width: float) -> Drawing:
     for i, ln in enumerate(lines):
         y = height - top_room - (i + 0.5) * ROW
         d.add(Line(x0, y, x1, y, strokeColor=RULE, strokeWidth=0.4))
-        d.add(String(4, y + 1, text(ln.line), fontName=SANS_BOLD, fontSize=6.5, fillColor=INK))
+        d.add(String(4, y + 5, text(ln.line), fontName=SANS_BOLD, fontSize=6.5, fillColor=INK))
+        words = line_name(ln.line)
+        if words != ln.line.replace("_", " "):
+            d.add(String(4, y - 1.5, text(words), fontName=SANS, fontSize=5.5, fillColor=INK))
         bad = ln.n_ineffective
         d.add(
             String(
                 4,
-                y - 7,
+                y - 8,
                 f"{ln.n_rivets} rivets, {bad} not effective",
                 fontName=SANS,
                 fontSize=5.5,
@@ -146,7 +154,7 @@ def rivet_map(member: MemberResult, system: str, width: float) -> Drawing:
                     lab,
                     fontName=SANS_BOLD,
                     fontSize=6,
-                    fillColor=PERF,
+                    fillColor=INK,
                     textAnchor="middle",
                 )
             )
@@ -186,12 +194,8 @@ def rivet_map(member: MemberResult, system: str, width: float) -> Drawing:
     d.add(String(4, ya - 10, f"position ({u})", fontName=SANS, fontSize=6, fillColor=MUTED))
     # legend
     ly, lx = 6, x0
-    for state, label in (
-        ("sound", "sound"),
-        ("missing", "M missing"),
-        ("loose", "L loose"),
-        ("headless", "H headless"),
-    ):
+    for state, term in RIVET_STATES.items():
+        label = term.name if state == "sound" else f"{term.letter} {term.name}"
         for g in _mark(state, lx + 3, ly + 2):
             d.add(g)
         d.add(String(lx + 9, ly, label, fontName=SANS, fontSize=6, fillColor=INK))
@@ -230,5 +234,5 @@ def ineffective_rows(member: MemberResult, system: str) -> list[list[str]]:
             cells.append(", ".join(xs) if xs else "–")
         if any(c != "–" for c in cells):
             gap = "–" if ln.longest_gap is None else position(ln.longest_gap, system)
-            rows.append([ln.line, *cells, gap])
+            rows.append([labelled(ln.line), *cells, gap])
     return rows

@@ -24,6 +24,7 @@ from reportlab.pdfbase.ttfonts import TTFont
 from reportlab.platypus import Paragraph, TableStyle
 
 from core.checks.flags import Level
+from core.glossary import LEVELS, RIVET_STATES
 
 SANS, SANS_BOLD, SANS_ITALIC = "AsfSans", "AsfSans-Bold", "AsfSans-Oblique"
 
@@ -119,14 +120,12 @@ LOSS = colors.HexColor("#e8a36a")
 HOLE = colors.white
 PERF = colors.HexColor("#9b2c2c")
 
-LEVEL_COLOUR = {
-    Level.OK: colors.HexColor("#3b7a57"),
-    Level.WATCH: colors.HexColor("#9a7b0a"),
-    Level.REVIEW: colors.HexColor("#c0561b"),
-    Level.URGENT: colors.HexColor("#a11d2e"),
-}
-#: a shape for each level, drawn beside its words (never colour alone)
-LEVEL_MARK = {Level.OK: "○", Level.WATCH: "◇", Level.REVIEW: "△", Level.URGENT: "■"}
+#: the glossary's colour of each level (the app's too)
+LEVEL_COLOUR = {lv: colors.HexColor(LEVELS[lv].colour) for lv in Level}
+#: the glossary's shape of each level, drawn beside its words (never colour alone)
+LEVEL_MARK = {lv: LEVELS[lv].glyph for lv in Level}
+#: the glossary's colour of each rivet state
+RIVET_COLOUR = {k: colors.HexColor(t.colour) for k, t in RIVET_STATES.items()}
 
 
 class Markup(str):
@@ -173,7 +172,7 @@ class Styles:
         self.head = _ps("head", 7.2, leading=8.8, fontName=SANS_BOLD)
         self.head_num = _ps("head_num", 7.2, leading=8.8, fontName=SANS_BOLD, alignment=2)
         self.caution = _ps("caution", 9.5, leading=13, fontName=SANS_BOLD)
-        self.verdict = _ps("verdict", 15, leading=20, fontName=SANS_BOLD)
+        self.overall = _ps("overall", 15, leading=20, fontName=SANS_BOLD)
 
 
 def table_style(n_head: int = 1, numeric_from: int | None = None, zebra: bool = False) -> list:

@@ -12,6 +12,7 @@ from reportlab.platypus import Paragraph, Table
 
 from core.assess.results import LimitState, MemberResult, StationResult
 from core.checks.flags import Level, worst
+from core.names import annotated
 from core.report.fmt import (
     DASH,
     pct,
@@ -241,7 +242,7 @@ def capacity_tables(st: Styles, m: MemberResult, system: str, width: float, meas
                     [
                         s.station if first else "",
                         position(s.x, system) if first else "",
-                        ls.name,
+                        annotated(ls.name),
                         value(ls.C_built, kind, system),
                         value(ls.C_found, kind, system),
                         ratio(ls.ratio),

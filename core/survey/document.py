@@ -106,7 +106,7 @@ def export_document(survey: Survey) -> str:
 def export_survey(
     source: FieldStore | Survey | str | Path, path: str | Path, *, force: bool = False
 ) -> Path:
-    """Write a survey (a model, an open store, or a store file) to ``path`` atomically.
+    """Write a survey (a model, an open field store, or its path) to ``path`` atomically.
 
     The path is checked first (:func:`core.outputs.check_output`): never the store itself,
     another store, another survey's file or a section description; an earlier export of the

@@ -183,7 +183,7 @@ class FieldStore(StoreOps, UndoOps):
         p = Path(path)
         dev = check_device(device) if device is not None else this_device()
         if not p.is_file():
-            raise StoreError(f"{p}: no such store file")
+            raise StoreError(f"{p}: no such field store")
         with p.open("rb") as f:
             head = f.read(16)
         if head != _MAGIC:

@@ -4,7 +4,7 @@ from kivy.uix.boxlayout import BoxLayout
 
 from fieldapp.drawing import SectionView
 from fieldapp.pad import FitLabel, NumPad, PadPanel, PadSheet
-from fieldapp.rivetmap import Overview, StretchAxis
+from fieldapp.rivetmap import Overview, RivetLegend, StretchAxis
 from fieldapp.screens.entries import EntryRow
 from fieldapp.screens.member import MemberScreen
 from fieldapp.screens.results import ResultsScreen
@@ -28,6 +28,7 @@ __all__ = [
     "PadPanel",
     "PadSheet",
     "ResultsScreen",
+    "RivetLegend",
     "RivetsScreen",
     "Root",
     "SectionView",

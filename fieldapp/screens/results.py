@@ -9,7 +9,7 @@ from kivy.uix.screenmanager import Screen
 
 from fieldapp import present
 
-HEAD = ("limit state", "as-built", "as-found", "found / built", "RF")
+HEAD = ("limit state", "as-built", "as-found", "ratio", "RF")
 
 
 class ResultsScreen(Screen):
@@ -29,7 +29,7 @@ class ResultsScreen(Screen):
             return
         if app.result_error:
             ids.heading.text = "Results"
-            ids.worst.level, ids.worst.text = "error", app.result_error
+            ids.worst.level, ids.worst.text = "error", present.esc(app.result_error)
             ids.flags.text = ""
             return
         if result is None or (result.member, result.station) != (s.member_id, s.station_id):
@@ -45,10 +45,13 @@ class ResultsScreen(Screen):
                 table.add_widget(Factory.Cell(text=text, key=r.key))
         flag = present.worst_flag(sr)
         ids.worst.level = f"l{int(flag.level) if flag else 0}"
-        ids.worst.text = "worst finding: " + present.flag_line(flag)
+        ids.worst.text = "worst flag: " + present.flag_line(flag)
         notes = present.grouped_notes(present.rows(sr, result.unit_system))
         ids.flags.text = "\n".join(
-            [*notes, *(present.flag_line(f) for f in sorted(sr.flags, key=lambda f: -f.level))]
+            [
+                *map(present.esc, notes),
+                *(present.flag_line(f) for f in sorted(sr.flags, key=lambda f: -f.level)),
+            ]
         )
 
     def export_file(self) -> None:

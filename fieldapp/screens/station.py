@@ -165,7 +165,7 @@ class StationScreen(EntryMixin, EntriesMixin, Screen):
         if s is None:
             return
         if app.result_error:
-            strip.level, strip.text = "error", "results: " + app.result_error
+            strip.level, strip.text = "error", "results: " + present.esc(app.result_error)
             return
         ok = result is not None and (result.member, result.station) == (s.member_id, s.station_id)
         if not ok:
@@ -174,13 +174,13 @@ class StationScreen(EntryMixin, EntriesMixin, Screen):
         sr = result.station_result
         flag = present.worst_flag(sr)
         strip.level = f"l{int(flag.level) if flag else 0}"
-        strip.text = present.flag_head(flag) + "\n" + present.governing_line(sr)
+        strip.text = present.flag_head(flag) + "\n" + present.esc(present.governing_line(sr))
         self.ids.drawing.found = sr.found.gross.pieces
         self.ids.drawing.labels = {self.part: present.loss_text(sr, self.part)} if self.part else {}
         for chip in self.ids.chips.children:
             loss = present.loss_text(sr, chip.part_id)
             name = part_name(chip.part_id)
-            chip.text = f"{name}\n{loss}" if loss else name
+            chip.text = f"{name} {loss}" if loss else name  # the loss wraps with the name
 
     # ------------------------------------------------------------------ choosing
     def choose_part(self, part_id: str) -> None:

@@ -54,7 +54,7 @@ class EntryMixin:
             return
         if self.mode not in FORMS:
             return
-        word = "Loss band" if self.mode == "band" else "Hole"
+        word = "Loss band" if self.mode == "band" else "Perforation"
         label = dict(FORMS[self.mode]).get(self.field, "")
         what = f"Correct {self.edit[1]}" if self.edit else word
         pad.title = f"{what} on {name}: {label} ({lu})"
@@ -180,7 +180,7 @@ class EntryMixin:
 
     # ------------------------------------------------------------------ bands and holes
     def build_form(self) -> None:
-        """The fields of a band or hole in the pad's slot (nothing in reading mode)."""
+        """The fields of a band or perforation in the pad's slot (nothing in reading mode)."""
         pad = self.ids.pad
         box = pad.ids.form
         box.clear_widgets()
@@ -200,7 +200,7 @@ class EntryMixin:
                 self._fields[k] = f
                 line.add_widget(f)
             box.add_widget(line)
-        noun = "band" if self.mode == "band" else "hole"
+        noun = "band" if self.mode == "band" else "perforation"
         pad.action_text = f"Save {self.edit[1]}" if self.edit else f"Add {noun}"
         self._show_form()
 
@@ -221,7 +221,7 @@ class EntryMixin:
         self.pad_title()
 
     def pad_action(self) -> None:
-        """Add (or save the correction of) the band or hole of the form."""
+        """Add (or save the correction of) the band or perforation of the form."""
         app, pad, f = App.get_running_app(), self.ids.pad, self.form
         if not self.part:
             return

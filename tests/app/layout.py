@@ -68,7 +68,12 @@ def needed(lbl: Label) -> tuple[float, float]:
     opts["text_size"] = (tw, None)
     opts["shorten"] = False
     opts.pop("text", None)
-    probe = CoreLabel(text=lbl.text, **opts)
+    if lbl.markup:  # measured as drawn: the tags take no room, a [font] span its own face
+        from kivy.core.text.markup import MarkupLabel
+
+        probe = MarkupLabel(text=lbl.text, **opts)
+    else:
+        probe = CoreLabel(text=lbl.text, **opts)
     probe.refresh()
     return probe.texture.size if probe.texture is not None else (0, 0)
 

@@ -15,6 +15,7 @@ from core.survey import FieldStore
 from core.units import show
 from fieldapp.names import readable
 from fieldapp.places import store_files
+from fieldapp.present import esc
 from tests.app.conftest import stop
 from tests.app.helpers import (
     answer,
@@ -82,14 +83,15 @@ def test_create_enter_mark_undo_and_reopen(field, tmp_path):
     # undo says exactly what it will undo, and does it only when asked
     d.tap(app.root.ids.undo)
     assert (
-        app.confirm.text == f"Undo rivet web, bottom at {dot.position:g} m: loose -> missing on G1?"
+        app.confirm.text
+        == f"Undo rivet bottom line through the web at {dot.position:g} m: loose -> missing on G1?"
     )
     answer(d, yes=False)
     assert dict(app.session.rivet_line_states("web_bottom"))[dot.position] == "missing"
     d.tap(app.root.ids.undo)
     answer(d)
     assert dict(app.session.rivet_line_states("web_bottom"))[dot.position] == "loose"
-    assert app.status.startswith("undone: rivet web, bottom")
+    assert app.status.startswith("undone: rivet bottom line through the web")
 
     # results shown equal core's numbers for the survey in the store
     d.tap(nav(d, "results"))
@@ -135,7 +137,10 @@ def check_results_table(d, store) -> None:
             assert number == pytest.approx(shown.value, rel=5e-3, abs=0.5)
             assert text.endswith(shown.symbol)
     worst = max(sr.flags, key=lambda f: f.level)
-    assert readable(worst.message) in d.screen("results").ids.worst.text
+    shown = d.screen("results").ids.worst.text
+    assert esc(readable(worst.detail)) in shown
+    # the level once, by its shape and words (a threshold's name may follow in the sentence)
+    assert shown.count(f"{worst.label} · ") == 1 and f"{worst.label}: " not in shown
     assert app.caution
 
 
@@ -189,7 +194,7 @@ def test_band_hole_note_and_photo_are_stored(field, tmp_path):
     d.tap(key(d, "Enter"))
     type_on(d, "6")
     d.tap(st.ids.pad.ids.yes)  # Add band
-    d.tap(st.ids.tabs.children[-3])  # Hole
+    d.tap(st.ids.tabs.children[-3])  # Perforation
     type_on(d, "300")
     d.tap(key(d, "Enter"))
     type_on(d, "340")

@@ -1,15 +1,17 @@
 """Every screen at every tablet size: nothing cut, shortened, overlapping or off the window.
 
-Walks each screen (and the pad's states: a held value, the band and hole forms, the pad
+Walks each screen (and the pad's states: a held value, the band and perforation forms, the pad
 over the Member screen, the undo question) at 800x1280 (portrait), 1024x768, 1280x800,
 1366x768 and 1920x1080, writes a screenshot of each to tests/_artifacts/screens/ and fails
-on every problem found by tests/app/layout.py.
+on every problem found by tests/app/layout.py, and on any word of another vocabulary on
+screen (the glossary's forbidden words, issue 15).
 """
 
 from __future__ import annotations
 
 import pytest
 
+from core.glossary import forbidden_in
 from fieldapp.session import Session
 from tests.app.conftest import SAMPLES
 from tests.app.layout import problems
@@ -63,6 +65,13 @@ def states(d, tmp_path):
     d.tap(nav(d, "results"))
     d.until(lambda: app.result is not None and app.result.seq == app.seq, timeout=10)
     yield "results"
+    from kivy.uix.scrollview import ScrollView
+
+    view = next(w for w in d.screen("results").walk() if isinstance(w, ScrollView))
+    view.scroll_y = 0  # the flags under the table: each with its level once, shape and words
+    d.pump(0.2)
+    yield "results-flags"
+    view.scroll_y = 1
     station.choose_part("web")
     station.commit_reading("6.8")
     d.pump(0.4)
@@ -94,4 +103,18 @@ def test_every_screen_fits_at_every_tablet_size(field, tmp_path, size):
         d.pump(0.15)
         d.shot(f"{size[0]}x{size[1]}-{state}", window=True)
         found += [f"{state}: {p}" for p in problems(list(Window.children))]
+        found += [f"{state}: {p}" for p in off_glossary(list(Window.children))]
     assert found == [], "\n".join(found)
+
+
+def off_glossary(roots) -> list[str]:
+    """Words of another vocabulary on screen (core.glossary.FORBIDDEN), in any label."""
+    from kivy.uix.label import Label
+
+    out = []
+    for root in roots:
+        for w in root.walk():
+            if isinstance(w, Label) and w.text:
+                for words, _rule, instead in forbidden_in(w.text):
+                    out.append(f"{words!r} on screen (say: {instead})")
+    return out

@@ -75,13 +75,15 @@ def test_names_the_inspector_reads():
 
     assert [part_name(p) for p in ("web", "angle_tl", "angle_br", "cover_bottom_1")] == [
         "web",
-        "top-left angle",
-        "bottom-right angle",
-        "bottom cover 1",
+        "top-left flange angle",
+        "bottom-right flange angle",
+        "bottom cover plate 1",
     ]
     assert place_name("web", "b1") == "web band b1"
-    assert place_name("angle_bl", "h") == "bottom-left angle, flat leg"
-    assert line_name("cover_top_l") == "top cover, left" and line_name("my_line") == "my line"
+    assert place_name("angle_bl", "h") == "bottom-left flange angle, horizontal leg"
+    assert line_name("cover_top_l") == "left line through the top cover"
+    assert line_name("my_line") == "my line"
     assert (
-        readable("rivet line web_bottom at angle_bl") == "rivets web, bottom at bottom-left angle"
+        readable("rivet line web_bottom at angle_bl")
+        == "bottom line through the web at bottom-left flange angle"
     )

@@ -52,11 +52,13 @@ def test_assess_and_report_read_the_same_options_file(tmp_path):
 
 
 def test_flags_win_over_the_file_and_the_file_over_the_survey(tmp_path):
-    f = options_file(tmp_path, level="legal", depth_basis="web")
-    doc = json.loads(run("assess", US, "--options", f, "--level", "operating", "--json"))
+    f = options_file(tmp_path, rating_level="legal", depth_basis="web")
+    doc = json.loads(run("assess", US, "--options", f, "--rating-level", "operating", "--json"))
     fac = {x["symbol"]: x["value"] for x in doc["family"]["factors"]}
     assert fac["gLL"] == 1.35  # operating from the flag
     assert doc["family"]["depth_basis"] == "web"  # from the file
+    old = json.loads(run("assess", US, "--options", f, "--level", "operating", "--json"))
+    assert old["family"] == doc["family"]  # the earlier name --level still works, hidden
     layers = merged({"level": "legal", "factors": {"gDC": 1.3}}, {"factors": {"gDW": 1.25}})
     assert layers == {"level": "legal", "factors": {"gDC": 1.3, "gDW": 1.25}}
 

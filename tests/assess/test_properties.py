@@ -189,7 +189,7 @@ def test_perforated_web_local_check_never_exceeds_as_built() -> None:
         s["perforations"] = [{"id": "p", "part": "web", "lo": 300, "hi": 340}]
     for st_ in assess(survey(d)).members[0].stations:
         assert not st_.found.shear_applicable
-        local = st_.limit_state("web_local")
+        local = st_.limit_state("local_web_shear")
         assert local.ratio < 1.0
         assert "plastic shear of the net vertical section" in local.note
         assert not local.found.has("V_el") and local.built.has("V_el")
@@ -200,10 +200,8 @@ def test_assumptions_name_the_web_methods_with_their_sources() -> None:
     # Every method is listed with its basis for the engineer to judge.
     a = assess(survey(sample_doc()))
     items = {x.item: x for x in a.assumptions}
-    assert (
-        "panel-representative web thickness" in items["web shear, panel (buckling and yield)"].value
-    )
-    local = items["web shear, local (bands, perforations, thinning)"]
+    assert "panel-representative web thickness" in items["web shear (buckling and yield)"].value
+    local = items["local web shear (bands, perforations, thinning)"]
     assert "thinnest cut" in local.value and "net vertical section" in local.value
     assert "from memory" in items["factor gamma_M1"].source
     assert items["standard family"].value.startswith("EN 1993")

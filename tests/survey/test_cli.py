@@ -52,5 +52,5 @@ def test_import_of_a_file_with_errors_fails_cleanly(tmp_path, capsys):
 
 def test_export_of_a_missing_store_fails_cleanly(tmp_path, capsys):
     assert main(["export", str(tmp_path / "none.asf"), "-o", str(tmp_path / "x.json")]) == 2
-    assert "no such store file" in capsys.readouterr().err
+    assert "no such field store" in capsys.readouterr().err
     assert main(["validate", str(SI_SAMPLE)]) == 0

@@ -155,7 +155,7 @@ def test_foreign_database_and_newer_layout(tmp_path):
     conn.close()
     with pytest.raises(StoreError, match="version 9 is newer than this asfound reads"):
         FieldStore.open(q)
-    with pytest.raises(StoreError, match="no such store"):
+    with pytest.raises(StoreError, match="no such field store"):
         FieldStore.open(tmp_path / "missing.asf")
 
 

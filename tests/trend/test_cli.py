@@ -42,7 +42,7 @@ def test_text_and_pdf_on_the_samples(tmp_path, capsys):
     assert out.exists()
     pages = pdf_pages(out)
     assert len(pages) >= 3
-    assert "Trend of repeat surveys" in pages[0] and "Tamsworth Creek" in pages[0]
+    assert "Trend of repeat surveys" in pages[0] and "Tollyweather Creek" in pages[0]
     assert "licensed professional engineer" in pages[0]
     for k, p in enumerate(pages, 1):
         assert "an aid to a licensed engineer" in p, f"page {k} lacks the caution"
