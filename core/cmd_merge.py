@@ -29,7 +29,7 @@ def register(sub: argparse._SubParsersAction) -> None:
     )
     p.add_argument("a", metavar="STORE_A", help="field store of one device")
     p.add_argument("b", metavar="STORE_B", help="field store of the other device")
-    p.add_argument("-o", "--output", required=True, metavar="STORE_C", help="new store file")
+    p.add_argument("-o", "--output", required=True, metavar="STORE_C", help="new field store")
     p.set_defaults(func=handler)
 
 

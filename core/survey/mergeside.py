@@ -134,7 +134,7 @@ def read_side(path: str | Path, timeout: float = 2.0) -> Side:
     """
     p = Path(path)
     if not p.is_file():
-        raise StoreError(f"{p}: no such store file")
+        raise StoreError(f"{p}: no such field store")
     try:
         with p.open("rb") as f:
             head = f.read(16)

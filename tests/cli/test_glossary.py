@@ -184,6 +184,10 @@ def test_the_command_line_output_and_help_use_the_glossary_words():
     bad += _where(forbidden_in(out), "section")
     _code, out = run_cli("validate", str(SAMPLES / "mistakes.json"))
     bad += _where(forbidden_in(out), "validate")
+    earlier = SAMPLES / "earlier" / "through-girder-us-2019.json"
+    code, out = run_cli("trend", str(earlier), str(SAMPLES / SURVEYS[1]), "--step", "25")
+    assert code == 0, out
+    bad += _where(forbidden_in(out), "trend")
     parser = build_parser()
     sub = next(a for a in parser._actions if a.dest == "command")
     for cmd, p in sub.choices.items():

@@ -13,7 +13,9 @@ SAMPLES = Path(__file__).resolve().parents[2] / "survey_samples"
 IDENTITY = ("structure", "location", "owner_ref", "inspector")
 
 
-@pytest.mark.parametrize("path", sorted(SAMPLES.rglob("*.json")), ids=lambda p: str(p.relative_to(SAMPLES)))
+@pytest.mark.parametrize(
+    "path", sorted(SAMPLES.rglob("*.json")), ids=lambda p: str(p.relative_to(SAMPLES))
+)
 def test_every_sample_says_it_is_invented(path):
     doc = json.loads(path.read_text(encoding="utf-8"))
     assert "invented" in doc.get("note", "").lower()
