@@ -76,6 +76,8 @@ def test_worker_reports_a_hang_and_recovers(tmp_path):
     with Worker(timeout=3.0) as w:
         out = w.run({}, [["validate", str(fifo)]])
         assert out.kind == "hang" and 3.0 <= out.seconds < 20.0
-        w.timeout = 60.0  # the new worker's first case loads the schema: no race with a busy machine
+        w.timeout = (
+            60.0  # the new worker's first case loads the schema: no race with a busy machine
+        )
         out = w.run({"in.json": b"{}"}, [["validate", "{dir}/in.json"]])
         assert (out.kind, out.exits) == ("ok", (1,))  # not a survey: listed, exit 1
