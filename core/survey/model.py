@@ -54,7 +54,7 @@ def _definition(sec: dict[str, Any], unit: str, place: str) -> SectionDefinition
     """:func:`definition_from_dict` of ``sec``, built once per distinct section object."""
     try:
         key = (json.dumps(sec, allow_nan=True), unit, place)
-    except (TypeError, ValueError):  # not plain JSON data: build it every time
+    except (TypeError, ValueError, RecursionError):  # not plain JSON data: build it each time
         return definition_from_dict(sec, unit, place)
     found = _DEFINITIONS.get(key)
     if found is None:

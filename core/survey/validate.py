@@ -164,6 +164,8 @@ def _range(v: float | None, lo: float, hi: float, name: str, unit: str, w: str, 
 
 
 def _dupes(ids: list[str], what: str, w: str) -> list[Problem]:
+    if len(set(ids)) == len(ids):
+        return []
     d = sorted(i for i, k in Counter(ids).items() if k > 1)
     return [Problem("error", f"duplicate {what} ids {d}", w)] if d else []
 
