@@ -15,7 +15,6 @@ Units of the document:
 from __future__ import annotations
 
 import bisect
-import json
 import math
 from typing import Any, Literal, get_args
 
@@ -32,7 +31,7 @@ from core import limits
 from core.definition import SectionDefinition, StationLoss
 from core.errors import InputError
 from core.errors import where as join
-from core.sectionfile import definition_from_dict
+from core.sectionfile import built_definition
 from core.survey import docversions
 from core.units import to_internal
 
@@ -42,27 +41,6 @@ VERSION = 2
 RivetStateName = Literal["sound", "loose", "missing", "headless"]
 RIVET_STATES: tuple[str, ...] = ("sound", "loose", "missing", "headless")
 Policy = Literal["mean", "minimum"]
-
-
-#: section definitions already built, by the text of their section object (the definition is
-#: frozen, so one object serves every caller; a section that fails is never kept)
-_DEFINITIONS: dict[tuple[str, str, str], SectionDefinition] = {}
-_MAX_DEFINITIONS = 256
-
-
-def _definition(sec: dict[str, Any], unit: str, place: str) -> SectionDefinition:
-    """:func:`definition_from_dict` of ``sec``, built once per distinct section object."""
-    try:
-        key = (json.dumps(sec, allow_nan=True), unit, place)
-    except (TypeError, ValueError, RecursionError):  # not plain JSON data: build it each time
-        return definition_from_dict(sec, unit, place)
-    found = _DEFINITIONS.get(key)
-    if found is None:
-        found = definition_from_dict(sec, unit, place)
-        if len(_DEFINITIONS) >= _MAX_DEFINITIONS:
-            _DEFINITIONS.clear()
-        _DEFINITIONS[key] = found
-    return found
 
 
 class _Model(BaseModel):
@@ -424,7 +402,7 @@ class Member(_Model):
         """
         sec = dict(self.section)
         sec.setdefault("name", self.label or self.id)
-        return _definition(sec, self._length_unit, self.place())
+        return built_definition(sec, self._length_unit, self.place())
 
     def span_mm(self) -> float:
         return self.span.to("length", self.place() + " / span")
