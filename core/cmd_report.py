@@ -7,13 +7,21 @@ or a section description; an earlier asfound PDF is replaced, any other file onl
 a folder, every survey file (``*.json``) and field store in it is reported in turn with a
 progress bar on stderr and one summary line per survey on stdout; a bad file never stops
 the rest, and the exit status is 1 when any survey failed (they are listed at the end).
+The surveys of a folder are reported side by side in worker processes (``--jobs N``,
+default: every core; ``--jobs 1`` reports them one after the other in this process); a
+survey whose worker dies (out of memory, killed) is tried once more alone and, if it dies
+again, reported as failed like any other bad file.
 ``--quiet`` leaves out the progress and the lines of the surveys that went well.
 """
 
 from __future__ import annotations
 
 import argparse
+import multiprocessing
+import os
 import sys
+from concurrent.futures import Future, ProcessPoolExecutor, as_completed
+from concurrent.futures.process import BrokenProcessPool
 from pathlib import Path
 
 from core import CAUTION
@@ -46,8 +54,25 @@ def register(sub: argparse._SubParsersAction) -> None:
         "report is replaced without it; an input, a field store or a survey file never is)",
     )
     p.add_argument("--units", choices=("si", "us"), help="unit system (default: the survey's)")
+    p.add_argument(
+        "--jobs",
+        type=_jobs,
+        metavar="N",
+        help="folder input: surveys reported side by side in N processes (default: every "
+        "core; 1: one after the other)",
+    )
     add_arguments(p)
     p.set_defaults(func=handler)
+
+
+def _jobs(text: str) -> int:
+    try:
+        n = int(text)
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"{text!r} is not a whole number") from None
+    if not 1 <= n <= 256:
+        raise argparse.ArgumentTypeError(f"{n} is outside the allowed range (1 to 256)")
+    return n
 
 
 def survey_files(folder: Path) -> list[Path]:
@@ -74,9 +99,66 @@ def _outputs(files: list[Path], outdir: Path) -> dict[Path, Path]:
     }
 
 
-def run_folder(folder: Path, outdir: Path, units: str | None, args: argparse.Namespace) -> int:
+def report_one(f: Path, out: Path, units: str | None, args: argparse.Namespace) -> tuple:
+    """Report one survey of a folder: ("ok", summary) or ("failed", the error); never
+    raises (it runs in a worker process; one bad file never stops the rest)."""
     from core.report import build_report
 
+    try:
+        rep = build_report(f, out, units=units, args=args, force=getattr(args, "force", False))
+    except Exception as e:  # one bad file never stops the rest
+        return "failed", f"{type(e).__name__}: {str(e).strip()}"
+    return "ok", f"{rep.level.label}, {rep.pages} pages -> {rep.path}"
+
+
+def _said(f: Path, result: tuple, voice: Voice) -> None:
+    kind, text = result
+    if kind == "ok":
+        if not voice.quiet:
+            print(f"ok      {f.name}: {text}", flush=True)
+        return
+    print(f"FAILED  {f.name}: {text}", flush=True)
+    print(f"        no report written for {f.name}", flush=True)
+
+
+def _pool(jobs: int) -> ProcessPoolExecutor:
+    methods = multiprocessing.get_all_start_methods()
+    ctx = multiprocessing.get_context("fork" if "fork" in methods else None)
+    return ProcessPoolExecutor(max_workers=jobs, mp_context=ctx)
+
+
+def _in_pool(
+    files: list[Path], outs: dict[Path, Path], units, args, jobs: int, bar: Steps, voice: Voice
+) -> dict:
+    """Every survey's result, reported in ``jobs`` worker processes (the bar moves as each
+    ends); a survey whose worker died is tried once more alone."""
+    results: dict[Path, tuple] = {}
+    retry: list[Path] = []
+    with _pool(jobs) as pool:
+        futures: dict[Future, Path] = {
+            pool.submit(report_one, f, outs[f], units, args): f for f in files
+        }
+        for fut in as_completed(futures):
+            f = futures[fut]
+            try:
+                results[f] = fut.result()
+            except BrokenProcessPool:
+                retry.append(f)
+                continue
+            bar.step(len(results) - 1, f.name)
+            _said(f, results[f], voice)
+    for f in sorted(retry):
+        with _pool(1) as alone:
+            try:
+                results[f] = alone.submit(report_one, f, outs[f], units, args).result()
+            except BrokenProcessPool as e:
+                results[f] = ("failed", f"the worker process reporting it stopped ({e})")
+        bar.step(len(results) - 1, f.name)
+        _said(f, results[f], voice)
+    return results
+
+
+def run_folder(folder: Path, outdir: Path, units: str | None, args: argparse.Namespace) -> int:
     files = survey_files(folder)
     if not files:
         print(
@@ -86,28 +168,21 @@ def run_folder(folder: Path, outdir: Path, units: str | None, args: argparse.Nam
     check_output_folder(outdir, [folder])
     outdir.mkdir(parents=True, exist_ok=True)
     outs = _outputs(files, outdir)
-    failed: list[tuple[str, str]] = []
     voice = Voice.of(args)
     bar = Steps(len(files), voice)
-    for i, f in enumerate(files):
-        bar.step(i, f.name)
-        try:
-            rep = build_report(
-                f, outs[f], units=units, args=args, force=getattr(args, "force", False)
-            )
-        except Exception as e:  # one bad file never stops the rest
-            msg = str(e).strip()
-            failed.append((f.name, msg))
-            print(f"FAILED  {f.name}: {type(e).__name__}: {msg}", flush=True)
-            print(f"        no report written for {f.name}", flush=True)
-            continue
-        if not voice.quiet:
-            print(
-                f"ok      {f.name}: {rep.level.label}, {rep.pages} pages -> {rep.path}", flush=True
-            )
+    jobs = min(getattr(args, "jobs", None) or os.cpu_count() or 1, len(files))
+    if jobs > 1:
+        results = _in_pool(files, outs, units, args, jobs, bar, voice)
+    else:
+        results = {}
+        for i, f in enumerate(files):
+            bar.step(i, f.name)
+            results[f] = report_one(f, outs[f], units, args)
+            _said(f, results[f], voice)
     bar.done()
+    failed = [f.name for f in files if results[f][0] != "ok"]
     if failed:
-        names = ", ".join(n for n, _ in failed)
+        names = ", ".join(failed)
         print(f"asfound: {len(failed)} of {len(files)} survey(s) failed: {names}", file=sys.stderr)
         return 1
     return 0

@@ -31,6 +31,7 @@ Example (lengths in mm)::
 
 from __future__ import annotations
 
+import json
 import math
 from collections.abc import Iterator
 from contextlib import contextmanager
@@ -323,3 +324,29 @@ def load_section_file(
         )
         limits.within(V, -limits.MAX_FORCE_N, limits.MAX_FORCE_N, "V", "N", w)
     return defn, loss, V, doc
+
+
+#: section definitions already built, by the text of their section object (the definition is
+#: frozen, so one object serves every caller; a section that fails is never kept)
+_DEFINITIONS: dict[tuple[str, str, str], SectionDefinition] = {}
+_MAX_DEFINITIONS = 256
+
+
+def built_definition(sec: dict[str, Any], unit: str, place: str) -> SectionDefinition:
+    """:func:`definition_from_dict` of ``sec``, built once per distinct section object (its
+    JSON text, unit and place): every station of a member shares one frozen definition.
+
+    Raises:
+        SchemaError / GeometryError / UnitError: as :func:`definition_from_dict`.
+    """
+    try:
+        key = (json.dumps(sec, allow_nan=True), unit, place)
+    except (TypeError, ValueError, RecursionError):  # not plain JSON data: build it each time
+        return definition_from_dict(sec, unit, place)
+    found = _DEFINITIONS.get(key)
+    if found is None:
+        found = definition_from_dict(sec, unit, place)
+        if len(_DEFINITIONS) >= _MAX_DEFINITIONS:
+            _DEFINITIONS.clear()
+        _DEFINITIONS[key] = found
+    return found

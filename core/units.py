@@ -162,7 +162,19 @@ def _scale(unit: str, target: str) -> float:
     return float(Q_(1.0, unit).to(target).magnitude)
 
 
+@lru_cache(maxsize=1024)
+def _known_factor(unit: str, kind: str) -> float:
+    """The factor of a unit text already read once (a failure is not kept: the next call
+    goes the long way and raises with its place)."""
+    return _scale(_unit_text(unit, kind, ""), INTERNAL[kind])
+
+
 def _factor(unit: str, kind: str, where: str) -> float:
+    if type(unit) is str:
+        try:
+            return _known_factor(unit, kind)
+        except Exception:  # the long way below says what is wrong, with the place
+            pass
     text = _unit_text(unit, kind, where)
     try:
         return _scale(text, INTERNAL[kind])
@@ -178,6 +190,15 @@ def _factor(unit: str, kind: str, where: str) -> float:
         raise UnitError(
             f"unit {unit!r} cannot be read ({type(e).__name__}: {e})", where=where
         ) from None
+
+
+def scale(unit: str, target: str) -> float:
+    """The factor from ``unit`` to ``target`` (units pint knows; kept once found).
+
+    Raises:
+        pint.errors.PintError: unknown units or units of different kinds.
+    """
+    return _scale(unit, target)
 
 
 def from_internal(value: float, kind: str, unit: str) -> float:

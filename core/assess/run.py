@@ -37,7 +37,7 @@ from core.families.context import MemberSetup, StationContext
 from core.families.liveload import NOT_RECORDED
 from core.section import analyse
 from core.survey.model import Member, Survey
-from core.survey.readings import station_stats
+from core.survey.readings import station_loss, station_stats
 
 
 def assess_member(
@@ -83,7 +83,23 @@ def assess_member(
                 where=member.place(st.id),
             )
         xs[st.id] = x
-    found_all = {st.id: analyse(defn, st.loss(member, policy)) for st in member.stations}
+    stats_all = {st.id: station_stats(st, member, policy) for st in member.stations}
+    found_all = {
+        st.id: analyse(defn, station_loss(st, member, policy, stats_all[st.id]))
+        for st in member.stations
+    }
+    # the stations of each as-found panel, in station order (found once, not per station)
+    panel_of = {sid: panels.at(xx, "found") for sid, xx in xs.items()}
+    groups: list[tuple[object, list[str]]] = []
+    for sid, p in panel_of.items():
+        for q, members_ in groups:
+            if q == p:
+                members_.append(sid)
+                break
+        else:
+            groups.append((p, [sid]))
+    same_of = {sid: ids for _p, ids in groups for sid in ids}
+    tw_of_panel: dict[int, tuple[float, str]] = {}
     design = rules.design_keys(cases, opts)
     moments: dict[float, float | None] = {}
 
@@ -111,15 +127,21 @@ def assess_member(
         keys = ["station"] if effects is not None and "station" in effects.live else []
         keys = keys or design
         pb, pf = panels.at(x, "built"), panels.at(x, "found")
-        same = [sid for sid, xx in xs.items() if panels.at(xx, "found") == pf]
-        tw, tw_words = panel_thickness(st.id, readings, defn.part(web.web_id).t, pf, policy, same)
+        same = same_of[st.id]
+        shared = pf is not None and pf.kind != "unstiffened"  # then one value per panel
+        if shared and id(same) in tw_of_panel:
+            tw, tw_words = tw_of_panel[id(same)]
+        else:
+            tw, tw_words = panel_thickness(st.id, readings, t_nom, pf, policy, same)
+            if shared:
+                tw_of_panel[id(same)] = (tw, tw_words)
         ctx = StationContext(
             family=family,
             member=mf,
             defn=defn,
             built=built,
             found=found,
-            loss_local=st.loss(member, "minimum"),
+            loss_local=station_loss(st, member, "minimum", stats_all[st.id]),
             web=web,
             D=D,
             y_depth=y_depth,
@@ -158,7 +180,7 @@ def assess_member(
                 x,
                 built,
                 found,
-                tuple(station_stats(st, member, opts.thickness_policy)),
+                tuple(stats_all[st.id]),
                 loss_pct,
                 tuple(states),
                 tuple(flags),

@@ -346,7 +346,7 @@ def fatigue_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     g = ctx.member["g"].value / s.multiple_presence
     key = ("fatigue truck", ctx.x)
     if key not in ctx.cache:
-        ctx.cache[key] = truck.envelope(ctx.span, ctx.x).M.value
+        ctx.cache[key] = truck.moment(ctx.span, ctx.x)
     M = ctx.cache[key] * g
     n = aashto_fatigue.cycles_per_truck(ctx.span, where=ctx.where)
 

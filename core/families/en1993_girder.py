@@ -283,7 +283,7 @@ def fatigue_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     lam = ctx.f("lambda_fat")
     key = ("fatigue lm71", ctx.x)
     if key not in ctx.cache:
-        ctx.cache[key] = LM71(1.0, "careful").envelope(ctx.span, ctx.x).M.value
+        ctx.cache[key] = LM71(1.0, "careful").moment(ctx.span, ctx.x)
     M = ctx.cache[key] * ctx.member["g"].value * lam
     gMf, gFf = ctx.f("gamma_Mf"), ctx.f("gamma_Ff")
 

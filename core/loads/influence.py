@@ -209,16 +209,19 @@ def _values(
     """:func:`_value` for many positions at once (numpy)."""
     tol = 1e-9 * L
     v = np.zeros_like(firsts)
-    for p, o in zip(t.P, t.offsets, strict=True):
-        a = firsts + heading * o
-        a = np.where(np.abs(a - x) <= tol, x, a)
-        on = (a >= -tol) & (a <= L + tol)
-        if effect == "M":
-            eta = np.where(a <= x, a * (L - x) / L, x * (L - a) / L)
-        else:
-            left = (a < x) | ((a == x) & (side < 0))
-            eta = np.where(left, -a / L, (L - a) / L)
-        v += p * np.where(on, eta, 0.0)
+    # every axle at once (one row each): the same elementwise operations as axle by axle,
+    # then the rows added in axle order, so the sums are the same to the last bit
+    a = firsts[None, :] + heading * np.asarray(t.offsets)[:, None]
+    a = np.where(np.abs(a - x) <= tol, x, a)
+    on = (a >= -tol) & (a <= L + tol)
+    if effect == "M":
+        eta = np.where(a <= x, a * (L - x) / L, x * (L - a) / L)
+    else:
+        left = (a < x) | ((a == x) & (side < 0))
+        eta = np.where(left, -a / L, (L - a) / L)
+    terms = np.asarray(t.P)[:, None] * np.where(on, eta, 0.0)
+    for row in terms:
+        v += row
     if t.q_around > 0.0:
         lo, hi, whole = fav
         a = firsts - heading * t.gap_before

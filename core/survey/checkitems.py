@@ -93,56 +93,111 @@ def check_cut(m, defn, kind: str, b, w: str, lu: str, good) -> list[Problem]:
     return probs
 
 
+class ReadingChecks:
+    """The checks of the readings of one station, with what they share found once (the
+    station's place, the parts by id, the bands): ``checks(r)`` gives the problems of reading
+    ``r`` and its value in mm (None when it cannot be used)."""
+
+    def __init__(self, m: Member, defn: SectionDefinition, st: Station, where: str = "") -> None:
+        self.base = join(where, m.place(st.id))
+        self.parts = {p.id: p for p in defn.parts}
+        self.known = [p.id for p in defn.parts]
+        self.bands = {b.id: b for b in st.bands}
+        self.factors: dict[str, float | None] = {}
+
+    def _factor(self, unit: str) -> float | None:
+        """mm per ``unit``, None when the unit is not a usable length (the long way says why)."""
+        if unit not in self.factors:
+            try:
+                self.factors[unit] = to_internal(1.0, unit, "length")
+            except AsfoundError:
+                self.factors[unit] = None
+        return self.factors[unit]
+
+    def _plain(self, r: Reading) -> float | None:
+        """The value in mm of a reading that has nothing to say (known part and region, a
+        length unit, within range, 20 % to 100 % of nominal: no error, no warning), else
+        None. The same tests as the long way, without building a place for a message."""
+        part = self.parts.get(r.part)
+        if part is None or type(r.unit) is not str:
+            return None
+        reg = r.region
+        if reg is not None:
+            if reg in ("h", "v"):
+                if not isinstance(part, Angle):
+                    return None
+            elif reg not in self.bands or self.bands[reg].part != r.part:
+                return None
+        f = self._factor(r.unit)
+        if f is None:
+            return None
+        v = float(r.value) * f
+        t = part.t
+        ok = limits.MIN_LENGTH_MM <= v <= ABSURD_MM and 0.2 <= v / t <= 1.5 and v <= t
+        return v if ok else None
+
+    def __call__(self, r: Reading) -> tuple[list[Problem], float | None]:
+        v0 = self._plain(r)
+        if v0 is not None:
+            return [], v0
+        probs: list[Problem] = []
+        w = join(self.base, f"reading {r.id!r}")
+        part = self.parts.get(r.part)
+        if part is None:
+            msg = f"unknown part id {r.part!r}; known parts: {self.known}"
+            return [Problem("error", msg, w)], None
+        bands = self.bands
+        if r.region is not None:
+            if r.region in ("h", "v"):
+                if not isinstance(part, Angle):
+                    probs.append(
+                        Problem(
+                            "error",
+                            f"region {r.region!r} is an angle leg, but part {r.part!r} is a plate",
+                            w,
+                        )
+                    )
+            elif r.region not in bands:
+                probs.append(
+                    Problem(
+                        "error",
+                        f"region {r.region!r} is not 'h', 'v' nor a band id at "
+                        f"this station (bands: {sorted(bands)})",
+                        w,
+                    )
+                )
+            elif bands[r.region].part != r.part:
+                probs.append(
+                    Problem(
+                        "error",
+                        f"band {r.region!r} lies on part {bands[r.region].part!r}, "
+                        f"not on {r.part!r}",
+                        w,
+                    )
+                )
+        try:
+            v: float | None = to_internal(r.value, r.unit, "length")
+        except AsfoundError:  # again, for the message with its place
+            v = _kind(r.value, r.unit, "length", join(w, "unit"), probs)
+        if v is None:
+            return probs, None
+        if not math.isfinite(v) or v < limits.MIN_LENGTH_MM or v > ABSURD_MM:
+            probs.append(
+                Problem(
+                    "error",
+                    f"thickness {r.value:g} {r.unit} is outside the allowed range "
+                    f"({limits.MIN_LENGTH_MM:g} to {ABSURD_MM:g} mm; nominal {part.t:g} mm)",
+                    w,
+                )
+            )
+            return probs, None
+        probs += plausibility(r.value, r.unit, part.t, w)
+        return probs, (None if any(p.level == "error" for p in probs) else v)
+
+
 def check_reading(
     m: Member, defn: SectionDefinition, st: Station, r: Reading, where: str = ""
 ) -> list[Problem]:
     """Problems of one reading: part and region known, unit a length, value in range,
     plausibility warnings (above nominal, unit slip)."""
-    probs: list[Problem] = []
-    w = join(where, m.place(st.id), f"reading {r.id!r}")
-    known = [p.id for p in defn.parts]
-    if r.part not in known:
-        return [Problem("error", f"unknown part id {r.part!r}; known parts: {known}", w)]
-    part = defn.part(r.part)
-    bands = {b.id: b for b in st.bands}
-    if r.region is not None:
-        if r.region in ("h", "v"):
-            if not isinstance(part, Angle):
-                probs.append(
-                    Problem(
-                        "error",
-                        f"region {r.region!r} is an angle leg, but part {r.part!r} is a plate",
-                        w,
-                    )
-                )
-        elif r.region not in bands:
-            probs.append(
-                Problem(
-                    "error",
-                    f"region {r.region!r} is not 'h', 'v' nor a band id at "
-                    f"this station (bands: {sorted(bands)})",
-                    w,
-                )
-            )
-        elif bands[r.region].part != r.part:
-            probs.append(
-                Problem(
-                    "error",
-                    f"band {r.region!r} lies on part {bands[r.region].part!r}, not on {r.part!r}",
-                    w,
-                )
-            )
-    v = _kind(r.value, r.unit, "length", join(w, "unit"), probs)
-    if v is None:
-        return probs
-    if not math.isfinite(v) or v < limits.MIN_LENGTH_MM or v > ABSURD_MM:
-        probs.append(
-            Problem(
-                "error",
-                f"thickness {r.value:g} {r.unit} is outside the allowed range "
-                f"({limits.MIN_LENGTH_MM:g} to {ABSURD_MM:g} mm; nominal {part.t:g} mm)",
-                w,
-            )
-        )
-        return probs
-    return probs + plausibility(r.value, r.unit, part.t, w)
+    return ReadingChecks(m, defn, st, where)(r)[0]

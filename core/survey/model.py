@@ -31,7 +31,7 @@ from core import limits
 from core.definition import SectionDefinition, StationLoss
 from core.errors import InputError
 from core.errors import where as join
-from core.sectionfile import definition_from_dict
+from core.sectionfile import built_definition
 from core.survey import docversions
 from core.units import to_internal
 
@@ -402,7 +402,7 @@ class Member(_Model):
         """
         sec = dict(self.section)
         sec.setdefault("name", self.label or self.id)
-        return definition_from_dict(sec, self._length_unit, self.place())
+        return built_definition(sec, self._length_unit, self.place())
 
     def span_mm(self) -> float:
         return self.span.to("length", self.place() + " / span")

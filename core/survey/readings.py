@@ -18,7 +18,6 @@ Notes and warnings (objects, not exceptions):
 from __future__ import annotations
 
 import math
-import statistics
 from collections.abc import Iterable, Sequence
 from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING
@@ -28,7 +27,8 @@ from core.errors import InputError
 from core.errors import where as join
 from core.parts import Angle
 from core.survey.problems import Problem
-from core.units import Q_, to_internal
+from core.survey.stats import fmean, stdev
+from core.units import from_internal, scale, to_internal
 
 if TYPE_CHECKING:
     from core.survey.model import Member, Station
@@ -91,8 +91,8 @@ def region_stats(
         if not math.isfinite(v) or v <= 0.0:
             raise InputError(f"thickness {v!r} mm is outside the allowed range (> 0)", where=where)
     n = len(vals)
-    t_min, t_mean = min(vals), statistics.fmean(vals)
-    cov = statistics.stdev(vals) / t_mean if n >= 2 else None
+    t_min, t_mean = min(vals), fmean(vals)
+    cov = stdev(vals) / t_mean if n >= 2 else None
     notes: list[Problem] = []
     if n < MIN_READINGS:
         notes.append(
@@ -130,6 +130,21 @@ def region_stats(
     )
 
 
+def cov_clearly_within(values_mm: Sequence[float]) -> bool:
+    """True when :func:`region_stats` of these (finite, positive) readings would have no
+    note: at least :data:`MIN_READINGS` and a COV below :data:`COV_LIMIT` by more than any
+    rounding of plain float arithmetic (1e-9; the float COV is off by about 1e-15). False
+    does not mean a note: only that :func:`region_stats` must decide, exactly."""
+    n = len(values_mm)
+    if n < MIN_READINGS:
+        return False
+    mean = math.fsum(values_mm) / n
+    if not mean > 0.0:
+        return False
+    var = math.fsum((x - mean) ** 2 for x in values_mm) / (n - 1)
+    return math.sqrt(var) / mean < COV_LIMIT - 1e-9
+
+
 def plausibility(value: float, unit: str, t_nominal: float, where: str = "") -> list[Problem]:
     """Warnings for one reading (``value`` in ``unit``) on a region of nominal ``t_nominal`` mm:
     above nominal, or looking like a unit slip (the other of mm / in fits the nominal)."""
@@ -138,7 +153,7 @@ def plausibility(value: float, unit: str, t_nominal: float, where: str = "") -> 
     r = v / t_nominal
     if r < 0.2 or r > 1.5:
         for alt in _ALT_UNITS:
-            if Q_(1.0, alt).to(unit).magnitude == 1.0:
+            if scale(alt, unit) == 1.0:
                 continue
             a = to_internal(value, alt, "length", where=where)
             if 0.3 <= a / t_nominal <= 1.1:
@@ -146,14 +161,14 @@ def plausibility(value: float, unit: str, t_nominal: float, where: str = "") -> 
                     Problem(
                         "warning",
                         f"{value:g} {unit} is {100 * r:.0f} % of the nominal "
-                        f"{Q_(t_nominal, 'mm').to(unit).magnitude:.4g} {unit}; "
+                        f"{from_internal(t_nominal, 'length', unit):.4g} {unit}; "
                         f"it looks like a value in {_NAMES[alt]} entered as {unit} (unit slip?)",
                         where,
                     )
                 )
                 return out
     if v > t_nominal:
-        nom = Q_(t_nominal, "mm").to(unit).magnitude
+        nom = from_internal(t_nominal, "length", unit)
         out.append(
             Problem(
                 "warning",
@@ -208,12 +223,30 @@ def _with_notes(st: RegionStats, more: Iterable[Problem]) -> RegionStats:
     return replace(st, notes=(*more, *st.notes))
 
 
-def station_loss(station: Station, member: Member, policy: str = "mean") -> StationLoss:
-    """The :class:`StationLoss` (mm) of ``station`` for the engine (see module docstring)."""
+def stats_as(stats: Sequence[RegionStats], policy: str) -> list[RegionStats]:
+    """The same statistics with the value used by ``policy`` ("mean" or "minimum"): what
+    :func:`station_stats` gives with that policy, without reading again."""
+    out = []
+    for s in stats:
+        if s.policy != policy:
+            chosen = s.t_mean if policy == "mean" else s.t_min
+            s = replace(s, t_used=min(chosen, s.t_nominal), policy=policy)
+        out.append(s)
+    return out
+
+
+def station_loss(
+    station: Station,
+    member: Member,
+    policy: str = "mean",
+    stats: Sequence[RegionStats] | None = None,
+) -> StationLoss:
+    """The :class:`StationLoss` (mm) of ``station`` for the engine (see module docstring);
+    ``stats``: its :func:`station_stats` when already found (any policy)."""
     defn = member.definition()
     lu = member.length_unit
     place = member.place(station.id)
-    stats = station_stats(station, member, policy)
+    stats = station_stats(station, member, policy) if stats is None else stats_as(stats, policy)
     band_ids = {b.id for b in station.bands}
     by_region = {(s.part, s.region): s for s in stats}
     thick: list[PartThickness] = []

@@ -13,6 +13,7 @@ from __future__ import annotations
 import copy
 import datetime as _dt
 import json
+from collections import Counter
 from functools import lru_cache
 from pathlib import Path
 from typing import Any
@@ -24,12 +25,12 @@ from core import limits
 from core.definition import SectionDefinition
 from core.errors import AsfoundError, InputError
 from core.errors import where as join
-from core.survey import docversions
+from core.survey import docversions, fastschema
 from core.survey.checkdetails import check_details
-from core.survey.checkitems import _kind, check_cut, check_reading
+from core.survey.checkitems import ReadingChecks, _kind, check_cut
 from core.survey.model import FORMAT, VERSION, Member, Station, Survey
 from core.survey.problems import Problem
-from core.survey.readings import region_stats
+from core.survey.readings import cov_clearly_within, region_stats
 from core.units import to_internal
 
 SCHEMA_DIR = Path(__file__).resolve().parent.parent / "schema"
@@ -102,12 +103,18 @@ def check_document(doc: Any, where: str = "") -> tuple[Survey | None, list[Probl
     if ver > VERSION:
         msg = f"version {ver} is newer than this asfound reads (1 to {VERSION}); update asfound"
         return None, [Problem("error", msg, where)]
-    work = copy.deepcopy(doc)
-    validator = jsonschema.Draft202012Validator(schema(ver))
-    errs = sorted(validator.iter_errors(work), key=lambda e: list(map(str, e.absolute_path)))
+    # the document is copied only when items must be set aside (``_prune``); it is never
+    # changed, and the model may share the section object's plain values with it
+    work = doc
+    errs = []
+    if not fastschema.known_valid(doc, ver):
+        validator = jsonschema.Draft202012Validator(schema(ver))
+        errs = sorted(validator.iter_errors(doc), key=lambda e: list(map(str, e.absolute_path)))
     for e in errs:
         path = tuple(e.absolute_path)
         probs.append(Problem("error", _schema_message(e), join(where, place_of(doc, path))))
+    if errs:
+        work = copy.deepcopy(doc)
     model: Survey | None = None
     if not errs or _prune(work, [tuple(e.absolute_path) for e in errs]):
         if ver < VERSION:
@@ -130,6 +137,8 @@ def check_document(doc: Any, where: str = "") -> tuple[Survey | None, list[Probl
                 for x in ve.errors():
                     msg = x["msg"] if len(x["msg"]) <= 300 else x["msg"][:300] + "..."
                     probs.append(Problem("error", msg, join(where, place_of(work, x["loc"]))))
+                if work is doc:
+                    work = copy.deepcopy(doc)
                 if not _prune(work, locs):
                     break
     if model is None:
@@ -155,7 +164,9 @@ def _range(v: float | None, lo: float, hi: float, name: str, unit: str, w: str, 
 
 
 def _dupes(ids: list[str], what: str, w: str) -> list[Problem]:
-    d = sorted({i for i in ids if ids.count(i) > 1})
+    if len(set(ids)) == len(ids):
+        return []
+    d = sorted(i for i, k in Counter(ids).items() if k > 1)
     return [Problem("error", f"duplicate {what} ids {d}", w)] if d else []
 
 
@@ -382,12 +393,15 @@ def check_station(
         return probs
     bands = {b.id: b for b in st.bands}
     good: dict[tuple[str, str | None], list[float]] = {}
+    checks = ReadingChecks(m, defn, st, where)
     for r in st.readings:
-        rp = check_reading(m, defn, st, r, where)
+        rp, v = checks(r)
         probs += rp
-        if not any(p.level == "error" for p in rp):
-            good.setdefault((r.part, r.region), []).append(r.mm())
+        if v is not None:
+            good.setdefault((r.part, r.region), []).append(v)
     for (part, region), vals in good.items():
+        if cov_clearly_within(vals):
+            continue  # region_stats would have no note
         wr = join(w, f"part {part!r}", f"region {region!r}" if region else None)
         probs += region_stats(vals, defn.part(part).t, part=part, region=region, where=wr).notes
     lu = m.length_unit

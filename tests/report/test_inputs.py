@@ -4,10 +4,12 @@
 from __future__ import annotations
 
 import json
+import os
 
 import pytest
 
 from core.cli import main
+from core.cmd_report import report_one
 from core.errors import SchemaError
 from core.report import build_report
 from core.survey import import_survey
@@ -104,3 +106,54 @@ def test_a_merged_store_lists_the_merge_decisions(tmp_path):
     text = " ".join(pdf_pages(rep.path))
     assert "merged from two devices' stores: 1 decision(s) of the merge to review" in text
     assert f"value at {m.id} / station {m.stations[0].id} / notes: both devices changed it" in text
+
+
+def test_folder_in_worker_processes_gives_what_one_process_gives(tmp_path, capsys):
+    """--jobs 2 writes the same reports and summary lines as --jobs 1 (their order may
+    differ: each is said when its survey is done)."""
+    src = tmp_path / "in"
+    src.mkdir()
+    (src / "a.json").write_bytes(SI_SAMPLE.read_bytes())
+    (src / "b-bad.json").write_bytes(MISTAKES.read_bytes())
+    (src / "c.json").write_bytes(SI_SAMPLE.read_bytes())
+    said = {}
+    for jobs in ("1", "2"):
+        out = tmp_path / f"out{jobs}"
+        assert main(["report", str(src), "-o", str(out), "--jobs", jobs]) == 1
+        cap = capsys.readouterr()
+        said[jobs] = sorted(cap.out.replace(str(out), "OUT").splitlines())
+        assert "3/3" in cap.err and "1 of 3 survey(s) failed: b-bad.json" in cap.err
+        assert sorted(p.name for p in out.iterdir()) == ["a.pdf", "c.pdf"]
+    assert said["1"] == said["2"]
+
+
+def _dies_on_b(f, out, units, args):
+    """A worker that dies (exits at once) on the survey named b*, else reports it."""
+    if f.name.startswith("b"):
+        os._exit(3)
+    return report_one(f, out, units, args)
+
+
+def test_a_worker_that_dies_fails_only_its_survey(tmp_path, capsys, monkeypatch):
+    """A survey whose worker process dies is tried again alone, then reported as failed;
+    the others are reported."""
+    import core.cmd_report as cmd
+
+    monkeypatch.setattr(cmd, "report_one", _dies_on_b)
+    src = tmp_path / "in"
+    src.mkdir()
+    for name in ("a.json", "b.json", "c.json"):
+        (src / name).write_bytes(SI_SAMPLE.read_bytes())
+    out = tmp_path / "out"
+    assert main(["report", str(src), "-o", str(out), "--jobs", "2"]) == 1
+    cap = capsys.readouterr()
+    assert "FAILED  b.json: the worker process reporting it stopped" in cap.out
+    assert "1 of 3 survey(s) failed: b.json" in cap.err
+    assert sorted(p.name for p in out.iterdir()) == ["a.pdf", "c.pdf"]
+
+
+def test_jobs_must_be_a_whole_number_in_range(capsys):
+    for bad in ("0", "x", "1000"):
+        with pytest.raises(SystemExit):
+            main(["report", "anything", "--jobs", bad])
+        assert "--jobs" in capsys.readouterr().err
