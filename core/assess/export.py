@@ -10,7 +10,9 @@ from core.assess.results import Assessment, LimitState, StationResult
 from core.units import display_unit, from_internal
 
 FORMAT = "asfound.assessment"
-VERSION = 2
+#: 3: limit-state keys are their printed names in snake case (e.g. "ltb" became
+#: "lateral_torsional_buckling"); 2: one standard family per assessment
+VERSION = 3
 
 
 def _q(value: float | None, kind: str, system: str) -> dict[str, Any] | None:

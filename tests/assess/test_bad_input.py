@@ -71,7 +71,7 @@ def test_bad_thresholds_and_states() -> None:
 def test_assess_json_is_stable(tmp_path, capsys) -> None:
     assert main(["assess", "survey_samples/through-girder-us.json", "--json"]) == 0
     doc = json.loads(capsys.readouterr().out)
-    assert doc["format"] == "asfound.assessment" and doc["version"] == 2
+    assert doc["format"] == "asfound.assessment" and doc["version"] == 3
     assert doc["family"]["key"] == "aashto" and doc["family"]["measure"]["symbol"] == "RF"
     syms = {f["symbol"] for f in doc["family"]["factors"]}
     assert {"phi_v", "phi_f", "gDC", "gDW", "gLL", "IM"} <= syms

@@ -205,7 +205,7 @@ def test_not_a_store_newer_layout_same_store_twice_and_existing_output(tmp_path)
         [a, tmp_path / "gone.asf"],
         tmp_path / "c.asf",
         StoreError,
-        r"gone\.asf: no such store",
+        r"gone\.asf: no such field store",
     )
     conn = sqlite3.connect(b)
     conn.execute("PRAGMA user_version = 9")
