@@ -18,7 +18,7 @@ from typing import Any, NamedTuple
 from urllib.parse import quote
 
 from core.errors import InputError, StoreError
-from core.survey.migrations import CURRENT, STORE_FORMAT, migrate
+from core.survey.migrations import CURRENT, checked_layout, migrate
 
 _MAGIC = b"SQLite format 3\x00"
 
@@ -162,23 +162,7 @@ def read_side(path: str | Path, timeout: float = 2.0) -> Side:
 
 
 def _read(conn: sqlite3.Connection, p: Path) -> Side:
-    res = [r[0] for r in conn.execute("PRAGMA integrity_check").fetchall()]
-    if res != ["ok"]:
-        raise StoreError(f"{p}: the store is damaged (integrity check: {'; '.join(res[:5])})")
-    has_meta = conn.execute(
-        "SELECT 1 FROM sqlite_master WHERE type = 'table' AND name = 'meta'"
-    ).fetchone()
-    fmt = (
-        conn.execute("SELECT value FROM meta WHERE key = 'format'").fetchone() if has_meta else None
-    )
-    if fmt is None or fmt[0] != STORE_FORMAT:
-        raise StoreError(f"{p}: an SQLite database, but not an asfound field store")
-    ver = conn.execute("PRAGMA user_version").fetchone()[0]
-    if ver > CURRENT:
-        raise StoreError(
-            f"{p}: store layout version {ver} is newer than this asfound reads "
-            f"(1 to {CURRENT}); update asfound"
-        )
+    ver = checked_layout(conn, p)
     if ver < CURRENT:
         last = conn.execute("SELECT COALESCE(MAX(id), 0) FROM history").fetchone()[0]
         migrate(conn, ver, "", "merge")

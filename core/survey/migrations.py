@@ -211,3 +211,30 @@ def migrate(conn: sqlite3.Connection, version: int, at: str, device: str) -> Non
     except BaseException:
         conn.execute("ROLLBACK")
         raise
+
+
+def checked_layout(conn: sqlite3.Connection, where: object) -> int:
+    """The store layout version of an open database, after checking that it is whole
+    (SQLite's integrity check), an asfound field store, and not newer than this asfound.
+
+    Raises:
+        StoreError: damaged, not a field store, or a newer layout (``where`` names the file).
+    """
+    res = [r[0] for r in conn.execute("PRAGMA integrity_check").fetchall()]
+    if res != ["ok"]:
+        raise StoreError(f"{where}: the store is damaged (integrity check: {'; '.join(res[:5])})")
+    has_meta = conn.execute(
+        "SELECT 1 FROM sqlite_master WHERE type = 'table' AND name = 'meta'"
+    ).fetchone()
+    fmt = (
+        conn.execute("SELECT value FROM meta WHERE key = 'format'").fetchone() if has_meta else None
+    )
+    if fmt is None or fmt[0] != STORE_FORMAT:
+        raise StoreError(f"{where}: an SQLite database, but not an asfound field store")
+    ver = conn.execute("PRAGMA user_version").fetchone()[0]
+    if ver > CURRENT:
+        raise StoreError(
+            f"{where}: store layout version {ver} is newer than this asfound reads "
+            f"(1 to {CURRENT}); update asfound"
+        )
+    return ver

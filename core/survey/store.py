@@ -35,7 +35,7 @@ from typing import Any
 from core.definition import SectionDefinition
 from core.errors import InputError, StoreError
 from core.survey.device import check_device, this_device
-from core.survey.migrations import CURRENT, STORE_FORMAT, V4_SCHEMA, migrate
+from core.survey.migrations import CURRENT, STORE_FORMAT, V4_SCHEMA, checked_layout, migrate
 from core.survey.model import VERSION, Member, Station, Survey, SurveyHeader
 from core.survey.problems import Problem
 from core.survey.storeops import StoreOps, _validated
@@ -193,24 +193,7 @@ class FieldStore(StoreOps, UndoOps):
         except sqlite3.Error as e:
             raise _sqlite_error(e, p) from None
         try:
-            res = [r[0] for r in conn.execute("PRAGMA integrity_check").fetchall()]
-            if res != ["ok"]:
-                raise StoreError(
-                    f"{p}: the store is damaged (integrity check: {'; '.join(res[:5])})"
-                )
-            fmt = (
-                conn.execute("SELECT value FROM meta WHERE key = 'format'").fetchone()
-                if _has_table(conn, "meta")
-                else None
-            )
-            if fmt is None or fmt[0] != STORE_FORMAT:
-                raise StoreError(f"{p}: an SQLite database, but not an asfound field store")
-            ver = conn.execute("PRAGMA user_version").fetchone()[0]
-            if ver > CURRENT:
-                raise StoreError(
-                    f"{p}: store layout version {ver} is newer than this asfound reads "
-                    f"(1 to {CURRENT}); update asfound"
-                )
+            ver = checked_layout(conn, p)
             if ver < CURRENT:
                 backup = p.with_name(f"{p.name}.v{ver}.bak")
                 if not backup.exists():
@@ -429,12 +412,3 @@ class FieldStore(StoreOps, UndoOps):
             )
             raise InputError(f"unknown {kind} id {ident!r}", where=place)
         return json.loads(row[0])
-
-
-def _has_table(conn: sqlite3.Connection, name: str) -> bool:
-    return (
-        conn.execute(
-            "SELECT 1 FROM sqlite_master WHERE type='table' AND name=?", (name,)
-        ).fetchone()
-        is not None
-    )
