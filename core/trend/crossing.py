@@ -82,7 +82,8 @@ def first_crossing(
         raise TrendError("a crossing needs one value per step")
 
     def worse(v: float) -> bool:
-        return v < target if higher_is_better else v > target
+        # as the flags grade (core.checks.flags._grade): RF below, utilisation at or above
+        return v < target if higher_is_better else v >= target
 
     prev_t, prev_v = None, None
     for t, v in zip(dts, values, strict=True):

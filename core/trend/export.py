@@ -68,10 +68,16 @@ def crossing_words(r: TrendResult, c: Crossing) -> str:
     """A crossing in words: ``2034.8 (2031.2 to 2040.5)``, ``already``, ``after 2075``."""
     if c.status == ALREADY:
         return "already"
-    if c.status == BEYOND:
-        return f"after {r.y_last + r.horizon:.0f}"
     if c.status != CROSSES:
-        return f"not before {year(r, c.dt):.0f}" if c.dt is not None else "not projected"
+        if c.status == BEYOND:
+            out = f"after {r.y_last + r.horizon:.0f}"
+        else:
+            out = f"not before {year(r, c.dt):.0f}" if c.dt is not None else "not projected"
+        if c.status_early == ALREADY:  # the central rate does not cross, the fast one does
+            return out + " (earliest: already)"
+        if c.status_early == CROSSES and c.dt_early is not None:
+            return out + f" (earliest {r.y_last + c.dt_early:.1f})"
+        return out
     out = f"{year(r, c.dt):.1f}"
     if c.status_early or c.status_late:
         lo = "already" if c.status_early == ALREADY else _yr(r, c.dt_early, c.status_early)

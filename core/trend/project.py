@@ -111,11 +111,10 @@ def projected_survey(
                 shift = T_FLOOR - min(mm)
             for r, v in zip(reads, mm, strict=True):
                 r["value"] = from_internal(v + shift, "length", r["unit"])
-            continue
         band = next(
             (b for b in station["bands"] if b["id"] == rs.region and b["part"] == rs.part), None
         )
-        if band is not None and band.get("t") is not None:
+        if band is not None and band.get("t") is not None:  # the band's t governs its readings
             if target < T_FLOOR:
                 lost.setdefault((rs.member, rs.station), _lost(rs))
                 target = T_FLOOR

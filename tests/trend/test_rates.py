@@ -115,3 +115,28 @@ def test_no_further_loss_gives_rate_zero_and_no_crossing(years, t):
     dts = [0.0, 5.0, 10.0]
     assert first_crossing(dts, [1.5] * 3, 1.0, True) == (BEYOND, None)
     assert first_crossing(dts, [0.5] * 3, 1.0, False) == (BEYOND, None)
+
+
+def test_a_value_at_its_threshold_counts_as_the_flags_count_it():
+    """The trend's crossings agree with the flag grading (core.checks.flags._grade: a
+    utilisation at or above a threshold is flagged, a rating factor only below it), so a
+    station already flagged at the latest survey reads "already" (property, no source)."""
+    assert first_crossing([0, 5], [1.0, 1.1], 1.0, False) == (ALREADY, 0.0)
+    assert first_crossing([0, 5], [1.0, 1.1], 1.0, True)[0] == BEYOND
+
+
+def test_the_band_is_named_when_only_the_fast_rate_crosses():
+    """A central projection that stays within the horizon while the fast rate (one standard
+    error faster) crosses must not read as safe: the earliest year is given too."""
+    from types import SimpleNamespace
+
+    from core.trend.crossing import Crossing, Target
+    from core.trend.export import crossing_words
+
+    r = SimpleNamespace(y_last=2025.0, horizon=50.0)
+    t = Target(1.0, "RF = 1")
+    c = Crossing(t, BEYOND, None, dt_early=36.0, status_early=CROSSES)
+    assert crossing_words(r, c) == "after 2075 (earliest 2061.0)"
+    c = Crossing(t, ENDED, 20.0, dt_early=0.0, status_early=ALREADY)
+    assert crossing_words(r, c) == "not before 2045 (earliest: already)"
+    assert crossing_words(r, Crossing(t, BEYOND, None, status_early=BEYOND)) == "after 2075"

@@ -159,3 +159,34 @@ def test_power_law_through_the_engine(tmp_path):
     )
     assert "from memory" in model_statement(r) and "0.3 to 0.8" in model_statement(r)
     assert set(r.steps) == {"central", "fast", "slow"}  # A has a standard error
+
+
+def test_a_band_given_by_its_thickness_is_thinned_even_with_readings():
+    """A loss band with both its thickness t and readings is assessed on t (the survey
+    record's rule); its projection must thin t, or the band would project no loss at all
+    (an optimistic trend). By hand: 1 mm lost over 10 years is 0.1 mm/year, 0.5 mm in 5."""
+    from core.trend.match import RegionSeries
+    from core.trend.run import fit
+    from core.units import from_internal
+
+    d = doc()
+    m = d["members"][0]
+    st = next(s for s in m["stations"] if any(b["id"] == "b1" for b in s["bands"]))
+    band = next(b for b in st["bands"] if b["id"] == "b1")
+    lu = d["survey"]["length_unit"]
+    band["t"] = from_internal(6.0, "length", lu)
+    latest = Survey.model_validate(d)
+    rs = RegionSeries(
+        m["id"], st["id"], band["part"], "b1", 12.0, (2015.0, 2025.0), (7.0, 6.0), is_band=True
+    )
+    rates = {(rs.member, rs.station, rs.key): fit(rs, "linear", y0=None, B=0.5)}
+    proj, lost = projected_survey(latest, (rs,), rates, 5.0)
+    assert not lost
+    got = next(
+        b
+        for s in proj.document()["members"][0]["stations"]
+        if s["id"] == st["id"]
+        for b in s["bands"]
+        if b["id"] == "b1"
+    )
+    assert got["t"] / from_internal(1.0, "length", lu) == pytest.approx(6.0 - 0.5, rel=1e-9)
