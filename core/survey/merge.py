@@ -109,7 +109,16 @@ def merge_stores(
             problems = verify(tmp)
     except AsfoundError:
         raise
-    except (ValueError, TypeError, KeyError, AttributeError, IndexError, sqlite3.Error) as e:
+    except (
+        ValueError,
+        TypeError,
+        KeyError,
+        AttributeError,
+        IndexError,
+        OverflowError,
+        RecursionError,
+        sqlite3.Error,
+    ) as e:
         detail = " ".join(str(e).split())[:300]
         raise StoreError(
             f"{pa} and {pb}: their content cannot be merged ({type(e).__name__}: {detail}); "
@@ -317,7 +326,10 @@ def _merge_entry(ea: ERow, eb: ERow, touch_a, touch_b, conflicts) -> ERow:
     data = _merge_fields(key, ea.data, eb.data, touch_a, touch_b, found, place)
     if data not in (ea.data, eb.data) and not _valid(ea.kind, data):
         ta, tb = touch_a.get((*key, None)), touch_b.get((*key, None))
-        data = ea.data if (ta and (tb is None or ta[0] > tb[0])) else eb.data
+        if ta is None and tb is None:  # neither history: the same choice in either order
+            data = min(ea.data, eb.data, key=lambda d: json.dumps(d, sort_keys=True))
+        else:
+            data = ea.data if (ta and (tb is None or ta[0] > tb[0])) else eb.data
         found = [
             c.__class__(**{**c.__dict__, "note": c.note + "; taken whole from the later change"})
             for c in found

@@ -155,7 +155,7 @@ def read_side(path: str | Path, timeout: float = 2.0) -> Side:
         if "locked" in msg or "busy" in msg:
             raise StoreError(f"{p}: the store is locked by another program ({msg})") from None
         raise StoreError(f"{p}: the store is damaged or not an asfound store ({msg})") from None
-    except (ValueError, TypeError, KeyError) as e:
+    except (ValueError, TypeError, KeyError, OverflowError, RecursionError) as e:
         raise StoreError(f"{p}: the store's content is damaged ({type(e).__name__}: {e})") from None
     finally:
         mem.close()

@@ -51,7 +51,7 @@ def write_plan(tmp: Path, sa: Side, sb: Side, plan: Plan, at: str, device: str) 
             "INSERT INTO conflict(merged, what, kind, member, station, entity, field, uid, kept,"
             " other, kept_at, kept_device, other_at, other_device, note) VALUES (?, ?, ?, ?, ?,"
             " ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)",
-            sorted(earlier) + now,
+            sorted(earlier, key=lambda r: tuple(map(str, r))) + now,
         )
         conn.execute(f"PRAGMA user_version = {CURRENT}")
         conn.execute("COMMIT")

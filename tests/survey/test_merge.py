@@ -293,3 +293,18 @@ def test_two_bands_with_one_id_keep_their_own_readings(tmp_path):
         }
         added = {h.entity: h.new for h in c.history() if h.action == "add" and h.kind != "survey"}
         assert added["b2"]["id"] == "b2" and added["r5"]["region"] == "b2"
+
+
+def test_a_store_with_absurdly_nested_content_is_refused_with_a_store_error(tmp_path):
+    """Fuzz finding (review): an entity whose JSON nests deeper than Python's recursion limit
+    is refused with asfound's own error naming the file, never a traceback; nothing written."""
+    a, b = common_start(tmp_path)
+    conn = sqlite3.connect(b)
+    deep = "[" * 100_000 + "]" * 100_000
+    conn.execute("UPDATE entity SET data = ? WHERE kind = 'reading'", (deep,))
+    conn.commit()
+    conn.close()
+    out = tmp_path / "c.asf"
+    with pytest.raises(StoreError, match=r"b\.asf"):
+        merge_stores(a, b, out)
+    assert not out.exists()
