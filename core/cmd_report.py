@@ -19,6 +19,7 @@ from __future__ import annotations
 import argparse
 import multiprocessing
 import os
+import signal
 import sys
 from concurrent.futures import Future, ProcessPoolExecutor, as_completed
 from concurrent.futures.process import BrokenProcessPool
@@ -121,10 +122,24 @@ def _said(f: Path, result: tuple, voice: Voice) -> None:
     print(f"        no report written for {f.name}", flush=True)
 
 
+def _worker_start() -> None:
+    """Workers leave Ctrl-C to the parent, which stops the whole run (see :func:`_stop`)."""
+    signal.signal(signal.SIGINT, signal.SIG_IGN)
+
+
 def _pool(jobs: int) -> ProcessPoolExecutor:
     methods = multiprocessing.get_all_start_methods()
     ctx = multiprocessing.get_context("fork" if "fork" in methods else None)
-    return ProcessPoolExecutor(max_workers=jobs, mp_context=ctx)
+    return ProcessPoolExecutor(max_workers=jobs, mp_context=ctx, initializer=_worker_start)
+
+
+def _stop(pool: ProcessPoolExecutor) -> None:
+    """Ctrl-C: no further survey starts and the workers end now. A report being written is
+    only a temporary file beside its target (atomic output), so nothing half-written stays."""
+    procs = list((getattr(pool, "_processes", None) or {}).values())
+    pool.shutdown(wait=False, cancel_futures=True)
+    for proc in procs:
+        proc.terminate()
 
 
 def _in_pool(
@@ -138,15 +153,19 @@ def _in_pool(
         futures: dict[Future, Path] = {
             pool.submit(report_one, f, outs[f], units, args): f for f in files
         }
-        for fut in as_completed(futures):
-            f = futures[fut]
-            try:
-                results[f] = fut.result()
-            except BrokenProcessPool:
-                retry.append(f)
-                continue
-            bar.step(len(results) - 1, f.name)
-            _said(f, results[f], voice)
+        try:
+            for fut in as_completed(futures):
+                f = futures[fut]
+                try:
+                    results[f] = fut.result()
+                except BrokenProcessPool:
+                    retry.append(f)
+                    continue
+                bar.step(len(results) - 1, f.name)
+                _said(f, results[f], voice)
+        except KeyboardInterrupt:
+            _stop(pool)
+            raise
     for f in sorted(retry):
         with _pool(1) as alone:
             try:

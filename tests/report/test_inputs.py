@@ -157,3 +157,34 @@ def test_jobs_must_be_a_whole_number_in_range(capsys):
         with pytest.raises(SystemExit):
             main(["report", "anything", "--jobs", bad])
         assert "--jobs" in capsys.readouterr().err
+
+
+def test_ctrl_c_stops_a_folder_run_in_worker_processes(tmp_path):
+    """Ctrl-C (SIGINT) during ``report DIR --jobs 2`` stops the run: exit 130 (README's
+    exit codes) and the surveys not yet reported are not reported behind the user's back."""
+    import signal
+    import subprocess
+    import sys
+    from pathlib import Path
+
+    src = tmp_path / "in"
+    src.mkdir()
+    n = 10
+    for i in range(n):
+        (src / f"s{i:02d}.json").write_bytes(SI_SAMPLE.read_bytes())
+    out = tmp_path / "out"
+    root = Path(__file__).resolve().parents[2]
+    child = subprocess.Popen(
+        [sys.executable, "-m", "core", "report", str(src), "-o", str(out), "--jobs", "2"],
+        stdout=subprocess.PIPE,
+        stderr=subprocess.DEVNULL,
+        cwd=root,
+        env=dict(os.environ, PYTHONPATH=str(root)),
+    )
+    assert child.stdout.readline().startswith(b"ok")  # the pool is running
+    child.send_signal(signal.SIGINT)
+    assert child.wait(timeout=120) == 130
+    written = list(out.glob("*.pdf"))
+    assert 1 <= len(written) < n
+    for p in written:
+        assert p.read_bytes()[:5] == b"%PDF-"
