@@ -139,8 +139,8 @@ def plan_merge(sa: Side, sb: Side) -> Plan:
     while n < min(len(sa.changes), len(sb.changes)) and sa.changes[n].same(sb.changes[n]):
         n += 1
     post_a, post_b = sa.changes[n:], sb.changes[n:]
-    _carry_renames(sa, sb, post_a, post_b)
     conflicts: list[Conflict] = []
+    _carry_renames(sa, sb, post_a, post_b, conflicts)
     _rename_clashes(sa, sb, post_a, post_b, conflicts)
     keys_a = {c.key() for c in post_a}
     keys_b = {c.key() for c in post_b}
@@ -179,9 +179,14 @@ def plan_merge(sa: Side, sb: Side) -> Plan:
     return Plan(entities, header, sa.changes[:n] + merged, conflicts, n, counts)
 
 
-def _carry_renames(sa: Side, sb: Side, post_a: list[Change], post_b: list[Change]) -> None:
+def _carry_renames(
+    sa: Side, sb: Side, post_a: list[Change], post_b: list[Change], conflicts: list[Conflict]
+) -> None:
     """An entry both stores have under two ids: the id an earlier merge gave it (its latest
-    rename in either store's conflict table), else the smaller id (parents first)."""
+    rename in either store's conflict table), else the smaller id (parents first). Where
+    that id is taken in the renamed store by another entry (made there after the earlier
+    merge), that entry moves out of the way first, to a fresh id (listed), so that no two
+    entries of one store ever share an id and their history rows stay their own."""
     latest: dict[str, str] = {}
     for r in sorted(sa.conflicts + sb.conflicts, key=lambda r: tuple(map(str, r))):
         if r[1] == "renamed":
@@ -193,10 +198,33 @@ def _carry_renames(sa: Side, sb: Side, post_a: list[Change], post_b: list[Change
             if lvl != level or ea.id == eb.id:
                 continue
             new = latest.get(uid) if latest.get(uid) in (ea.id, eb.id) else min(ea.id, eb.id)
-            if ea.id != new:
-                rename(sa, uid, new, post_a)
-            else:
-                rename(sb, uid, new, post_b)
+            side, post, e = (sa, post_a, ea) if ea.id != new else (sb, post_b, eb)
+            kept = sb.entities[uid] if side is sa else sa.entities[uid]
+            for o in list(side.entities.values()):
+                if o.uid != uid and o.key() == e._replace(id=new).key():
+                    _move_aside(sa, sb, side, post, o, kept, conflicts)
+            rename(side, uid, new, post)
+
+
+def _move_aside(sa: Side, sb: Side, side: Side, post, e: ERow, kept: ERow, conflicts) -> None:
+    """Give entry ``e`` of ``side`` a fresh id: ``kept`` (the other store's) holds its id."""
+    used = {
+        x.id
+        for s in (sa, sb)
+        for x in s.entities.values()
+        if (x.kind, x.member, x.station) == e.key()[:3]
+    }
+    new = _fresh(e.kind, e.id, used)
+    t = _added(post).get(e.key(), ("", ""))
+    rename(side, e.uid, new, post)
+    conflicts.append(
+        Conflict(
+            "renamed", e.kind, e.member, e.station, e.id, "id", e.uid, kept.id, new,
+            "", "", str(t[0]), str(t[1]),
+            f"{e.kind} {e.id!r} was made on one device after an earlier merge had given "
+            f"that id to another entry; it is now {new!r}",
+        )
+    )  # fmt: skip
 
 
 def _touches(changes: list[Change]) -> dict[tuple, tuple[tuple, str]]:
