@@ -21,9 +21,13 @@ from core.report.source import checksum
 from core.report.styles import MARGIN, Markup, Styles, esc, make_table_style, page_size
 from core.report.trendplot import Curve, time_plot
 from core.trend.crossing import ALREADY, CROSSES
+from core.trend.errors import TrendError
 from core.trend.export import crossing_words, method_statement, model_statement
 from core.trend.run import Tracked, TrendResult
 from core.units import display_unit, from_internal, symbol
+
+#: narrowest column of one survey's values in the trend tables, pt (common practice, no source)
+MIN_DATE_COL = 24.0
 
 
 def _head(h: str) -> str:
@@ -188,11 +192,12 @@ def _crossing_table(st: Styles, r: TrendResult, member: str, width: float) -> Ta
                 *(Paragraph(esc(crossing_words(r, c)), st.cell) for c in t.crossings),
             ]
         )
-    fixed = 38 + 50 * n
+    dw = _date_width(width - 38 - 90 - 56 * len(r.targets), n)
+    fixed = 38 + dw * n
     rest = width - fixed
     lsw = min(110.0, rest * 0.28)
     cw = (rest - lsw) / len(r.targets)
-    widths = [38, lsw, *([50] * n), *([cw] * len(r.targets))]
+    widths = [38, lsw, *([dw] * n), *([cw] * len(r.targets))]
     return Table(rows, colWidths=widths, repeatRows=1, style=make_table_style(zebra=True))
 
 
@@ -247,7 +252,8 @@ def _rate_table(st: Styles, r: TrendResult, member: str, system: str, width: flo
         rows.append([Paragraph(esc(v), sty) for v, sty in cells])
     n = len(r.series.surveys)
     tail = [*([62] if us else []), *([] if one else [70]), 44, 44]
-    widths = [36, 0, *([50] * n), 84, *tail]
+    dw = _date_width(width - 36 - 84 - sum(tail) - 90, n)
+    widths = [36, 0, *([dw] * n), 84, *tail]
     widths[1] = width - sum(widths)
     out: list = [Table(rows, colWidths=widths, repeatRows=1, style=make_table_style(zebra=True))]
     words = f"Every rate of this member: {methods[0]}." if one else ""
@@ -345,3 +351,18 @@ def write_trend_report(r: TrendResult, out: str | Path, system: str, *, force: b
         doc = document(str(tmp), size, info)
         doc.build(story(r, system, size[0] - 2 * MARGIN), canvasmaker=canvas_maker(info))
     return info.pages
+
+
+def _date_width(room: float, n: int) -> float:
+    """The width of each of ``n`` survey columns in ``room`` pt: 50, or narrower to fit.
+
+    Raises:
+        TrendError: the surveys do not fit the page even at :data:`MIN_DATE_COL`.
+    """
+    w = min(50.0, room / n)
+    if w < MIN_DATE_COL:
+        raise TrendError(
+            f"{n} surveys do not fit one page's trend table (at most "
+            f"{max(2, int(room // MIN_DATE_COL))} here); give fewer surveys, or --json for all"
+        )
+    return w

@@ -18,6 +18,7 @@ from core.assess import assess, options_from_dict
 from core.survey.model import Survey
 from core.trend import trend
 from core.trend.crossing import ALREADY, BEYOND, CROSSES
+from core.trend.errors import TrendError
 from core.trend.project import projected_survey, values_of
 from tests.trend.helpers import doc, shifted
 
@@ -190,3 +191,21 @@ def test_a_band_given_by_its_thickness_is_thinned_even_with_readings():
         if b["id"] == "b1"
     )
     assert got["t"] / from_internal(1.0, "length", lu) == pytest.approx(6.0 - 0.5, rel=1e-9)
+
+
+def test_many_surveys_fit_the_report_or_are_refused_clearly(tmp_path):
+    """Seven surveys give a report with narrower columns; where they cannot fit the page the
+    report is refused with a trend error naming the limit, never reportlab's ValueError
+    (review finding; property, no source)."""
+    from core.report.trend import _date_width, write_trend_report
+
+    years = [2004 + 3 * k for k in range(7)]
+    paths, _ = _series(
+        tmp_path, adds=tuple(0.2 * (6 - k) for k in range(7)), dates=[f"{y}-06-01" for y in years]
+    )
+    res = trend(paths, horizon=10.0, step_years=10.0)
+    assert write_trend_report(res, tmp_path / "seven.pdf", "si") >= 1
+    assert (tmp_path / "seven.pdf").read_bytes()[:5] == b"%PDF-"
+    assert _date_width(300.0, 6) == 50.0 and _date_width(300.0, 10) == 30.0
+    with pytest.raises(TrendError, match="at most 12"):
+        _date_width(300.0, 13)
