@@ -9,32 +9,20 @@ and spread along the span.
 
 from __future__ import annotations
 
-import copy
 import json
 import tempfile
 from pathlib import Path
 
-from benchmarks.common import median_seconds, table
+from benchmarks.common import median_seconds, spread_survey, table
 from core.report import build_report
 
 SAMPLE = Path(__file__).resolve().parents[1] / "survey_samples" / "deck-girder-si.json"
 
 
 def survey_40_stations(path: Path, n: int = 40) -> Path:
-    """The SI sample with its first member's stations copied to ``n`` stations spread evenly
-    along the span (positions in the sample's position unit, metres)."""
-    doc = json.loads(SAMPLE.read_text(encoding="utf-8"))
-    m = doc["members"][0]
-    span = float(m["span"]["value"])
-    base = m["stations"]
-    out = []
-    for i in range(n):
-        st = copy.deepcopy(base[i % len(base)])
-        st["id"] = f"S{i + 1:02d}"
-        st["position"] = round(span * (i + 0.5) / n, 3)
-        out.append(st)
-    m["stations"] = out
-    path.write_text(json.dumps(doc), encoding="utf-8")
+    """The SI sample with its member's stations copied to ``n`` stations spread evenly
+    along the span (:func:`benchmarks.common.spread_survey`), written to ``path``."""
+    path.write_text(json.dumps(spread_survey(n, SAMPLE)), encoding="utf-8")
     return path
 
 
