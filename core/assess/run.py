@@ -8,6 +8,7 @@ import datetime as _dt
 from core.assess.assumptions import assumptions
 from core.assess.details import MemberDetails, SupportData, member_details
 from core.assess.effects import LiveCase, effects_at, station_effects
+from core.assess.gcpause import collector_paused
 from core.assess.inputs import web_geometry
 from core.assess.options import AssessOptions
 from core.assess.panels import layout
@@ -361,7 +362,11 @@ def assess(survey: Survey, opts: AssessOptions | None = None, problems: tuple = 
     Raises:
         InputError / GeometryError / UnitError: the first unusable value, with its place.
     """
-    opts = opts or AssessOptions()
+    with collector_paused():
+        return _assess(survey, opts or AssessOptions(), problems)
+
+
+def _assess(survey: Survey, opts: AssessOptions, problems: tuple) -> Assessment:
     key = opts.standard or survey.survey.standard
     family = build_family(key, opts, survey)
     material, mat_notes, assumed = family.rules.material(survey)
