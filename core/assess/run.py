@@ -7,7 +7,7 @@ import datetime as _dt
 
 from core.assess.assumptions import assumptions
 from core.assess.details import MemberDetails, SupportData, member_details
-from core.assess.effects import LiveCase, effects_at, station_effects
+from core.assess.effects import LiveCase, effects_at, live_table, station_effects
 from core.assess.gcpause import collector_paused
 from core.assess.inputs import web_geometry
 from core.assess.options import AssessOptions
@@ -110,20 +110,23 @@ def assess_member(
             moments[x] = design_effects(family, eff, design).get("M")
         return moments[x]
 
+    # every case moved over every station and support at once (the positions are checked)
+    table = live_table(cases, span, [*xs.values(), *(s.x for s in details.supports)])
     setup = MemberSetup(
         details,
         panels,
         moment,
-        {s.id: effects_at(member, s.x, span, cases) for s in details.supports},
+        {s.id: effects_at(member, s.x, span, cases, table) for s in details.supports},
         found_all,
         _age(survey),
+        xs=tuple(xs.values()),
     )
     at_station, unattached = attach_supports(details, xs, web.D_web)
     for st in member.stations:
         place = member.place(st.id)
         x = xs[st.id]
         found = found_all[st.id]
-        effects = station_effects(member, st, x, span, cases)
+        effects = station_effects(member, st, x, span, cases, table)
         all_effects[st.id] = effects
         keys = ["station"] if effects is not None and "station" in effects.live else []
         keys = keys or design

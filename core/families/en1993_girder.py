@@ -26,7 +26,7 @@ from core.checks.en1993_uframe import compression_chord
 from core.errors import InputError
 from core.families.base import Choice, Factor
 from core.families.common import moment_state
-from core.families.context import StationContext
+from core.families.context import StationContext, model_moment
 from core.families.fatigue import fatigue_state
 from core.families.girder import (
     bottom_flange,
@@ -281,10 +281,7 @@ def fatigue_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     if ctx.family.rules.model_key(ctx.opts) != "lm71":
         return []
     lam = ctx.f("lambda_fat")
-    key = ("fatigue lm71", ctx.x)
-    if key not in ctx.cache:
-        ctx.cache[key] = LM71(1.0, "careful").moment(ctx.span, ctx.x)
-    M = ctx.cache[key] * ctx.member["g"].value * lam
+    M = model_moment(ctx, "fatigue lm71", LM71(1.0, "careful")) * ctx.member["g"].value * lam
     gMf, gFf = ctx.f("gamma_Mf"), ctx.f("gamma_Ff")
 
     def life(label, ds):
