@@ -53,11 +53,22 @@ def tension_flange(ctx: StationContext, check: HolesCheck, note: str) -> list[Li
     out = {}
     ids = ctx.tension_parts
     for label, st in (("built", ctx.built), ("found", ctx.found)):
-        Ag = flange_area(st, ids)
-        An = float(sum(st.net.part_area[i] for i in ids))
-        if Ag <= 0 or An >= Ag:
+        # the as-built one is the same at every station of the member (once per sense)
+        key = ("tension flange built", ids, ctx.compression) if label == "built" else None
+        if key is None or key not in ctx.cache:
+            Ag = flange_area(st, ids)
+            An = float(sum(st.net.part_area[i] for i in ids))
+            got = None
+            if Ag > 0 and An < Ag:
+                got = check(st, An, Ag, f"{ctx.where} / tension flange ({label})")
+            if key is None:
+                out[label] = got
+            else:
+                ctx.cache[key] = out[label] = got
+        else:
+            out[label] = ctx.cache[key]
+        if out[label] is None:
             return []
-        out[label] = check(st, An, Ag, f"{ctx.where} / tension flange ({label})")
     (b, Mb), (f, Mf) = out["built"], out["found"]
     return [
         moment_state("tension_flange_at_holes", "tension flange at holes", b, f, note, (Mb, Mf))
