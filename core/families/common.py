@@ -221,9 +221,12 @@ def rivet_groups(ctx: StationContext, check: RivetCheck) -> list[LimitState]:
             w = f"{ctx.where} / rivet line {line.id!r}"
             key = ("rivet as-built", line.id)
             if key not in ctx.cache:
-                ctx.cache[key] = check(ctx, line, plies(ctx.defn, line, None, Fu), w)
-            rb = ctx.cache[key]
-            rf = check(ctx, line, plies(ctx.defn, line, ctx.loss_local, Fu), w)
+                pb = plies(ctx.defn, line, None, Fu)
+                ctx.cache[key] = (check(ctx, line, pb, w), pb)
+            rb, pb = ctx.cache[key]
+            pf = plies(ctx.defn, line, ctx.loss_local, Fu)
+            # plies at their nominal thickness here: the as-built rivet (a pure function)
+            rf = rb if pf == pb else check(ctx, line, pf, w)
             share = line.n_lines / k
             C_b += share * rb.Rr / line.pitch
             gap, why = local_gap(
