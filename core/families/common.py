@@ -154,6 +154,10 @@ def local_shear(
     lo, hi = ctx.y_depth
     out = {}
     for label, st in (("built", ctx.built), ("found", ctx.found)):
+        key = ("local web shear built", clause)  # the same at every station of the member
+        if label == "built" and key in ctx.cache:
+            out[label] = ctx.cache[key]
+            continue
         per_V, y = (None, None)
         if st.shear_applicable:
             per_V, y = st.gross.profile.tau_max(1.0)
@@ -170,6 +174,8 @@ def local_shear(
             clause=clause,
             where=f"{ctx.where} / local web shear ({label})",
         )
+        if label == "built":
+            ctx.cache[key] = out[label]
     b, f = out["built"], out["found"]
     note = f"net web area over {ctx.depth_words}; " + "; ".join(f.notes)
     if not ctx.found.shear_applicable:
