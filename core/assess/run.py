@@ -32,7 +32,9 @@ from core.assess.station import (
 )
 from core.checks.flags import Flag, Level, flag_rivet_line
 from core.errors import InputError
-from core.families import build_family
+
+# the families load with the engine, not inside the first assessment
+from core.families import aashto, aisc, build_family, en1993  # noqa: F401
 from core.families.base import Family
 from core.families.context import MemberSetup, StationContext
 from core.families.liveload import NOT_RECORDED
