@@ -115,7 +115,9 @@ def run(args) -> int:
                         ls.ratio,
                         ls.measure,
                         symbol(u),
-                        "<" if s.governing is ls else _NOT_APPLICABLE * _not_applicable(ls),
+                        "<"
+                        if s.governing is ls
+                        else (_NOT_APPLICABLE if _not_applicable(ls) else ""),
                     )
                 )
             rows.append((s.station, None, OVERALL_LEVEL, None, None, None, None, "", s.level.label))
