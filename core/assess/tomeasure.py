@@ -341,7 +341,15 @@ def _member_defaults(m: Member) -> list[ToMeasure]:
     w = m.place()
     if m.simple_span is None and not any(s.loads and s.loads.DC for s in m.stations):
         out.append(
-            ToMeasure("defaulted", m.id, None, "dead load", "none given: no dead load demand", w)
+            ToMeasure(
+                "defaulted",
+                m.id,
+                None,
+                "dead load",
+                "none given: taken as zero, which is not conservative (the girder's own "
+                "weight acts at least)",
+                w,
+            )
         )
     ll = m.live_load
     if (ll is None or (ll.distribution is None and ll.lever_rule is None)) and not any(
