@@ -128,10 +128,13 @@ class Session:
         return [m.id for m in self.store.to_survey().members]
 
     def station_ids(self) -> list[str]:
+        """The member's stations in position order along the span (Next and Prev follow it),
+        whatever the order in which they were made."""
         if not self.member_id:
             return []
         survey = self.store.to_survey()
-        return [s.id for s in survey.member(self.member_id).stations]
+        stations = survey.member(self.member_id).stations
+        return [s.id for s in sorted(stations, key=lambda s: (s.position, s.id))]
 
     def member(self) -> Member:
         return self.store.member(self.member_id)

@@ -211,6 +211,15 @@ def _member(m: Member) -> list[ToMeasure]:
     return out
 
 
+def for_station(m: Member, st: Station) -> list[ToMeasure]:
+    """The items of one station alone (what the station screen marks), in checklist order.
+
+    Raises:
+        AsfoundError: the member's section cannot be built (with its place).
+    """
+    return _station(m, st, m.definition())
+
+
 def _station(m: Member, st: Station, defn) -> list[ToMeasure]:
     place = m.place(st.id)
     if not st.readings:

@@ -80,7 +80,7 @@ class MemberScreen(Screen):
         box = self.ids.stations
         box.clear_widgets()
         m = s.store.to_survey().member(s.member_id)
-        for st in m.stations:
+        for st in sorted(m.stations, key=lambda st: (st.position, st.id)):  # along the span
             b = Factory.Big(
                 text=f"{st.id} at {st.position:g} {s.position_unit}",
                 chosen=st.id == s.station_id,
