@@ -295,6 +295,7 @@ def station_loss(
                 to_internal(b.lo, lu, "length", where=w),
                 to_internal(b.hi, lu, "length", where=w),
                 min(t, nominal_of(defn, b.part, w)),
+                b.leg,
             )
         )
     perfs = [
