@@ -70,8 +70,11 @@ class StationBands:
         head = f"{sym} {b.value:.2f}, band {b.p5:.2f}-{b.p95:.2f}"
         if b.straddles(1.0):
             return head + ": not settled by the readings"
-        good = (b.p5 >= 1.0) if sym == "RF" else (b.p95 <= 1.0)
-        return head + (": within limits across the band" if good else ": beyond 1 across the band")
+        if sym == "RF":
+            return head + (
+                ": above 1 across the band" if b.p5 >= 1.0 else ": below 1 across the band"
+            )
+        return head + (": below 1 across the band" if b.p95 <= 1.0 else ": above 1 across the band")
 
 
 @dataclass(frozen=True)
