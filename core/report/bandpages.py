@@ -79,7 +79,8 @@ def span_section(
         )
     if rows:
         beyond = f"P({sym} < 1)" if sym == "RF" else f"P({sym} > 1)"
-        method = next(iter(mb.stations[0].bands.values())).method.replace("_", " ")
+        key0 = next(iter(mb.stations[0].bands.values())).method
+        method = {"first_order": "first order", "monte_carlo": "Monte Carlo"}[key0]
         block = [
             Spacer(1, 4),
             caption(
