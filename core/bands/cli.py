@@ -6,9 +6,10 @@ from __future__ import annotations
 import argparse
 from collections.abc import Iterator
 
-from core.bands.options import BandOptions
+from core.bands.options import TOLERANCE_MM, BandOptions
 from core.bands.run import MemberBands
 from core.console import table
+from core.errors import InputError
 from core.names import readable
 
 #: the first words of the title of the bands' table (the golden test leaves the section out)
@@ -30,12 +31,40 @@ def add_band_arguments(p: argparse.ArgumentParser) -> None:
         help="Monte Carlo draws per station (20 to 100000; default 400, fixed seed)",
     )
 
+    p.add_argument(
+        "--band-tolerance",
+        action="append",
+        default=[],
+        metavar="INSTRUMENT=MM",
+        help="tolerance of an instrument (a reading's instrument text, or ultrasonic / "
+        "caliper) in mm, e.g. caliper=0.02; may be repeated (defaults: ultrasonic 0.1, "
+        "caliper 0.05; common practice, no source)",
+    )
+
+
+def _tolerances(items: list[str]) -> dict[str, float]:
+    out = dict(TOLERANCE_MM)
+    for item in items:
+        name, sep, value = item.partition("=")
+        try:
+            mm = float(value)
+        except ValueError:
+            mm = float("nan")
+        if not sep or not name.strip() or mm != mm:
+            raise InputError(
+                f"band tolerance {item!r} is not INSTRUMENT=MM (e.g. caliper=0.02)",
+                where="--band-tolerance",
+            )
+        out[name.strip()] = mm
+    return out
+
 
 def band_options(args: argparse.Namespace) -> BandOptions:
     """The band options of the flags (raises InputError for a value out of range)."""
     return BandOptions(
         method=getattr(args, "band_method", "first_order"),
         samples=getattr(args, "band_samples", 400),
+        tolerance_mm=_tolerances(getattr(args, "band_tolerance", [])),
     )
 
 

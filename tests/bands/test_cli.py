@@ -58,3 +58,19 @@ def test_text_section_and_monte_carlo_flag():
 def test_bad_samples_are_refused_with_the_range():
     rc, _, err = run("assess", "--band-samples", "5", str(SAMPLES / "deck-girder-si.json"))
     assert rc != 0 and "samples 5 is outside 20 to 100000" in err
+
+
+def test_an_instruments_tolerance_from_the_command_line():
+    """A zero tolerance for the sample's gauge leaves the readings' scatter only: every
+    region's sigma is its standard error alone (smaller than with the default)."""
+    f = str(SAMPLES / "deck-girder-si.json")
+    _, out, _ = run("assess", "--json", f)
+    _, out0, _ = run("assess", "--json", "--band-tolerance", "ultrasonic gauge=0", f)
+    a = json.loads(out)["bands"]["members"][0]["stations"][0]["regions"]
+    b = json.loads(out0)["bands"]["members"][0]["stations"][0]["regions"]
+    assert all(y["tolerance"]["value"] == 0.0 for y in b)
+    assert all(y["sigma"]["value"] < x["sigma"]["value"] for x, y in zip(a, b, strict=True))
+    rc, _, err = run("assess", "--band-tolerance", "caliper", f)
+    assert rc != 0 and "is not INSTRUMENT=MM" in err
+    rc, _, err = run("assess", "--band-tolerance", "caliper=9", f)
+    assert rc != 0 and "outside 0 to 5 mm" in err
