@@ -21,6 +21,12 @@ def run() -> str:
     regions = sum(len(x.sigmas) for x in b.members[0].stations)
     t_plain = median_seconds(lambda: assess(s), repeat=5, min_time=0.2)
     t = median_seconds(lambda: assess_with_bands(s), repeat=5, min_time=0.2)
+    cpu = []
+    for _ in range(5):
+        c0 = time.process_time()
+        assess_with_bands(s)
+        cpu.append(time.process_time() - c0)
+    t_cpu = sorted(cpu)[len(cpu) // 2]
     mc = BandOptions(method="monte_carlo", samples=100)
     t0 = time.perf_counter()
     _, bm = assess_with_bands(s, band_opts=mc)
@@ -35,8 +41,14 @@ def run() -> str:
             "yes" if t < 1.0 else "no",
         ),
         (
+            "the same, CPU time of this process (less sensitive to the other load)",
+            f"{t_cpu:.3f} s",
+            "< 1 s",
+            "yes" if t_cpu < 1.0 else "no",
+        ),
+        (
             "bands alone (difference), per engine evaluation",
-            f"{(t - t_plain) / max(b.runs - 40, 1) * 1e3:.2f} ms",
+            f"{(t - t_plain) / max(b.runs, 1) * 1e3:.2f} ms",
             "-",
             "-",
         ),
