@@ -98,11 +98,14 @@ class StationEvaluator:
             d = deltas.get((s.part, s.region), 0.0)
             if d:
                 lo = FLOOR * s.t_nominal
-                mean, mn = max(s.t_mean + d, lo), max(s.t_min + d, lo)
-                chosen = mean if s.policy == "mean" else mn
+                # the mean used is of the readings each capped at nominal (see
+                # core.survey.readings): moved from it, so that d = 0 gives today's value
+                used, mn = max(s.t_mean_capped + d, lo), max(s.t_min + d, lo)
+                chosen = used if s.policy == "mean" else mn
                 s = replace(
                     s,
-                    t_mean=mean,
+                    t_mean=max(s.t_mean + d, lo),
+                    t_mean_capped=used,
                     t_min=mn,
                     t_used=min(chosen, s.t_nominal),
                     t_local=min(mn, s.t_nominal),
