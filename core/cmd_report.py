@@ -8,9 +8,10 @@ a folder, every survey file (``*.json``) and field store in it is reported in tu
 progress bar on stderr and one summary line per survey on stdout; a bad file never stops
 the rest, and the exit status is 1 when any survey failed (they are listed at the end).
 The surveys of a folder are reported side by side in worker processes (``--jobs N``,
-default: every core; ``--jobs 1`` reports them one after the other in this process); a
-survey whose worker dies (out of memory, killed) is tried once more alone and, if it dies
-again, reported as failed like any other bad file.
+default: every core this process may use; ``--jobs 1`` reports them one after the other in
+this process); the summary lines come in the folder's order. A survey whose worker dies (out
+of memory, killed) is tried once more alone and, if it dies again, reported as failed like
+any other bad file; the rest go on side by side.
 ``--quiet`` leaves out the progress and the lines of the surveys that went well.
 """
 
@@ -21,7 +22,7 @@ import multiprocessing
 import os
 import signal
 import sys
-from concurrent.futures import Future, ProcessPoolExecutor, as_completed
+from concurrent.futures import FIRST_COMPLETED, Future, ProcessPoolExecutor, wait
 from concurrent.futures.process import BrokenProcessPool
 from pathlib import Path
 
@@ -60,7 +61,7 @@ def register(sub: argparse._SubParsersAction) -> None:
         type=_jobs,
         metavar="N",
         help="folder input: surveys reported side by side in N processes (default: every "
-        "core; 1: one after the other)",
+        "core this process may use; 1: one after the other)",
     )
     add_arguments(p)
     p.set_defaults(func=handler)
@@ -142,38 +143,79 @@ def _stop(pool: ProcessPoolExecutor) -> None:
         proc.terminate()
 
 
+def default_jobs() -> int:
+    """The cores this process may run on (its CPU affinity where the system tells it, as
+    under a job scheduler or ``taskset``; else every core)."""
+    try:
+        return max(1, len(os.sched_getaffinity(0)))
+    except (AttributeError, OSError):  # not on this system
+        return os.cpu_count() or 1
+
+
+class _InOrder:
+    """Summary lines in the folder's order: a survey's line is printed once every survey
+    before it has its result (the bar moves as each ends, whatever the order)."""
+
+    def __init__(self, files: list[Path], results: dict, voice: Voice) -> None:
+        self.files, self.results, self.voice, self.next = files, results, voice, 0
+
+    def flush(self) -> None:
+        while self.next < len(self.files) and self.files[self.next] in self.results:
+            f = self.files[self.next]
+            _said(f, self.results[f], self.voice)
+            self.next += 1
+
+
 def _in_pool(
     files: list[Path], outs: dict[Path, Path], units, args, jobs: int, bar: Steps, voice: Voice
 ) -> dict:
-    """Every survey's result, reported in ``jobs`` worker processes (the bar moves as each
-    ends); a survey whose worker died is tried once more alone."""
+    """Every survey's result, reported in ``jobs`` worker processes; the summary lines come
+    in the folder's order.
+
+    At most ``jobs`` surveys are given out at a time, so when a worker dies the surveys then
+    in hand are the only suspects: each is tried once more alone (a second death fails it),
+    and the others go on side by side in a new pool."""
     results: dict[Path, tuple] = {}
-    retry: list[Path] = []
-    with _pool(jobs) as pool:
-        futures: dict[Future, Path] = {
-            pool.submit(report_one, f, outs[f], units, args): f for f in files
-        }
-        try:
-            for fut in as_completed(futures):
-                f = futures[fut]
-                try:
-                    results[f] = fut.result()
-                except BrokenProcessPool:
-                    retry.append(f)
-                    continue
-                bar.step(len(results) - 1, f.name)
-                _said(f, results[f], voice)
-        except KeyboardInterrupt:
-            _stop(pool)
-            raise
-    for f in sorted(retry):
-        with _pool(1) as alone:
-            try:
-                results[f] = alone.submit(report_one, f, outs[f], units, args).result()
-            except BrokenProcessPool as e:
-                results[f] = ("failed", f"the worker process reporting it stopped ({e})")
+    lines = _InOrder(files, results, voice)
+    queue = list(files)
+    suspects: list[Path] = []
+
+    def ended(f: Path, result: tuple) -> None:
+        results[f] = result
         bar.step(len(results) - 1, f.name)
-        _said(f, results[f], voice)
+        lines.flush()
+
+    while queue:
+        with _pool(jobs) as pool:
+            running: dict[Future, Path] = {}
+            try:
+                while queue or running:
+                    while queue and len(running) < jobs:
+                        f = queue.pop(0)
+                        running[pool.submit(report_one, f, outs[f], units, args)] = f
+                    done, _ = wait(running, return_when=FIRST_COMPLETED)
+                    broken = False
+                    for fut in done:
+                        f = running.pop(fut)
+                        try:
+                            ended(f, fut.result())
+                        except BrokenProcessPool:
+                            broken = True
+                            suspects.append(f)
+                    if broken:  # every survey still in hand went down with the pool
+                        suspects += running.values()
+                        break
+            except KeyboardInterrupt:
+                _stop(pool)
+                raise
+        for f in sorted(suspects, key=files.index):
+            with _pool(1) as alone:
+                try:
+                    r = alone.submit(report_one, f, outs[f], units, args).result()
+                except BrokenProcessPool as e:
+                    r = ("failed", f"the worker process reporting it stopped ({e})")
+            ended(f, r)
+        suspects = []
     return results
 
 
@@ -189,7 +231,7 @@ def run_folder(folder: Path, outdir: Path, units: str | None, args: argparse.Nam
     outs = _outputs(files, outdir)
     voice = Voice.of(args)
     bar = Steps(len(files), voice)
-    jobs = min(getattr(args, "jobs", None) or os.cpu_count() or 1, len(files))
+    jobs = min(getattr(args, "jobs", None) or default_jobs(), len(files))
     if jobs > 1:
         results = _in_pool(files, outs, units, args, jobs, bar, voice)
     else:
