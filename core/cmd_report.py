@@ -22,6 +22,7 @@ import multiprocessing
 import os
 import signal
 import sys
+from collections import deque
 from concurrent.futures import FIRST_COMPLETED, Future, ProcessPoolExecutor, wait
 from concurrent.futures.process import BrokenProcessPool
 from pathlib import Path
@@ -144,12 +145,18 @@ def _stop(pool: ProcessPoolExecutor) -> None:
 
 
 def default_jobs() -> int:
-    """The cores this process may run on (its CPU affinity where the system tells it, as
-    under a job scheduler or ``taskset``; else every core)."""
-    try:
-        return max(1, len(os.sched_getaffinity(0)))
-    except (AttributeError, OSError):  # not on this system
-        return os.cpu_count() or 1
+    """The cores this process may run on: its CPU affinity where the system tells it (a
+    job scheduler, a container or ``taskset`` may give it fewer than the machine has),
+    else every core of the machine; at least 1."""
+    count = getattr(os, "process_cpu_count", None)  # Python 3.13+: the affinity's count
+    if count is not None:
+        n = count()
+    else:
+        try:
+            n = len(os.sched_getaffinity(0))
+        except (AttributeError, OSError):  # not on this system
+            n = os.cpu_count()
+    return max(1, n or 1)
 
 
 class _InOrder:
@@ -166,6 +173,62 @@ class _InOrder:
             self.next += 1
 
 
+def _outcome(fut: Future) -> tuple:
+    """A finished survey's result; an error raised out of the worker (not one of the
+    survey's, which :func:`report_one` returns) fails that survey alone. Raises
+    BrokenProcessPool when the worker process died."""
+    try:
+        return fut.result()
+    except BrokenProcessPool:
+        raise
+    except (Exception, SystemExit) as e:
+        return "failed", f"the worker process reporting it failed ({type(e).__name__}: {e})"
+
+
+def _side_by_side(queue: deque, task, jobs: int, ended) -> list[Path]:
+    """Report the surveys of ``queue`` in one pool of ``jobs`` workers, at most ``jobs`` in
+    hand at a time, calling ``ended(f, result)`` as each ends. When a worker dies the pool
+    is broken: the surveys then in hand are returned (the suspects; one of them killed it)
+    and the rest stay in ``queue``."""
+    with _pool(jobs) as pool:
+        running: dict[Future, Path] = {}
+        try:
+            while queue or running:
+                while queue and len(running) < jobs:
+                    f = queue.popleft()
+                    running[pool.submit(*task(f))] = f
+                done, _ = wait(running, return_when=FIRST_COMPLETED)
+                suspects = []
+                for fut in done:
+                    f = running.pop(fut)
+                    try:
+                        ended(f, _outcome(fut))
+                    except BrokenProcessPool:
+                        suspects.append(f)
+                if suspects:  # every survey still in hand went down with the pool
+                    return suspects + list(running.values())
+        except KeyboardInterrupt:
+            _stop(pool)
+            raise
+    return []
+
+
+def _alone(f: Path, task) -> tuple:
+    """One survey in a worker of its own (a suspect of a worker's death): its result, or
+    failed when this worker dies too."""
+    with _pool(1) as pool:
+        try:
+            return _outcome(pool.submit(*task(f)))
+        except BrokenProcessPool:
+            return "failed", (
+                "the worker process reporting it stopped (killed, out of memory or crashed; "
+                "twice, the second time alone)"
+            )
+        except KeyboardInterrupt:
+            _stop(pool)
+            raise
+
+
 def _in_pool(
     files: list[Path], outs: dict[Path, Path], units, args, jobs: int, bar: Steps, voice: Voice
 ) -> dict:
@@ -173,49 +236,24 @@ def _in_pool(
     in the folder's order.
 
     At most ``jobs`` surveys are given out at a time, so when a worker dies the surveys then
-    in hand are the only suspects: each is tried once more alone (a second death fails it),
-    and the others go on side by side in a new pool."""
+    in hand are the only suspects: each is tried once more alone (a second death fails it
+    alone), and the rest go on side by side in a new pool."""
     results: dict[Path, tuple] = {}
     lines = _InOrder(files, results, voice)
-    queue = list(files)
-    suspects: list[Path] = []
+    order = {f: i for i, f in enumerate(files)}
+
+    def task(f: Path) -> tuple:
+        return report_one, f, outs[f], units, args
 
     def ended(f: Path, result: tuple) -> None:
         results[f] = result
-        bar.step(len(results) - 1, f.name)
+        bar.ended(len(results), f.name)
         lines.flush()
 
+    queue = deque(files)
     while queue:
-        with _pool(jobs) as pool:
-            running: dict[Future, Path] = {}
-            try:
-                while queue or running:
-                    while queue and len(running) < jobs:
-                        f = queue.pop(0)
-                        running[pool.submit(report_one, f, outs[f], units, args)] = f
-                    done, _ = wait(running, return_when=FIRST_COMPLETED)
-                    broken = False
-                    for fut in done:
-                        f = running.pop(fut)
-                        try:
-                            ended(f, fut.result())
-                        except BrokenProcessPool:
-                            broken = True
-                            suspects.append(f)
-                    if broken:  # every survey still in hand went down with the pool
-                        suspects += running.values()
-                        break
-            except KeyboardInterrupt:
-                _stop(pool)
-                raise
-        for f in sorted(suspects, key=files.index):
-            with _pool(1) as alone:
-                try:
-                    r = alone.submit(report_one, f, outs[f], units, args).result()
-                except BrokenProcessPool as e:
-                    r = ("failed", f"the worker process reporting it stopped ({e})")
-            ended(f, r)
-        suspects = []
+        for f in sorted(_side_by_side(queue, task, jobs, ended), key=order.__getitem__):
+            ended(f, _alone(f, task))
     return results
 
 

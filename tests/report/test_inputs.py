@@ -154,18 +154,6 @@ def test_a_worker_that_dies_fails_only_its_survey(tmp_path, capsys, monkeypatch)
     assert said == ["a.json:", "b.json:", "c.json:"]  # the folder's order
 
 
-def test_the_default_job_count_follows_cpu_affinity(monkeypatch):
-    """The default --jobs is the number of cores the process may run on, not every core
-    of the machine (a scheduler or taskset may give it fewer)."""
-    import core.cmd_report as cmd
-
-    monkeypatch.setattr(os, "sched_getaffinity", lambda pid: {0, 3, 5}, raising=False)
-    assert cmd.default_jobs() == 3
-    monkeypatch.delattr(os, "sched_getaffinity", raising=False)
-    monkeypatch.setattr(os, "cpu_count", lambda: 7)
-    assert cmd.default_jobs() == 7
-
-
 def test_jobs_must_be_a_whole_number_in_range(capsys):
     for bad in ("0", "x", "1000"):
         with pytest.raises(SystemExit):
