@@ -25,6 +25,7 @@ from reportlab.platypus import Paragraph, TableStyle
 
 from core.checks.flags import Level
 from core.glossary import LEVELS, RIVET_STATES
+from core.report.cells import CellLine, plain_cell
 
 SANS, SANS_BOLD, SANS_ITALIC = "AsfSans", "AsfSans-Bold", "AsfSans-Oblique"
 
@@ -82,10 +83,14 @@ def esc(s: object) -> str:
 MAX_CELL_HEIGHT = 260.0
 
 
-def cell_text(s: object, style: ParagraphStyle, width: float) -> Paragraph:
-    """A table cell that prints survey text literally, ``width`` pt wide (padding included);
-    cut when it would be taller than :data:`MAX_CELL_HEIGHT`, never a layout error."""
+def cell_text(s: object, style: ParagraphStyle, width: float) -> Paragraph | CellLine:
+    """A table cell that prints survey text literally, ``width`` pt wide (padding included):
+    one :class:`CellLine` when it fits on a line, else a Paragraph, cut when it would be
+    taller than :data:`MAX_CELL_HEIGHT`, never a layout error."""
     raw = text(s)
+    line = plain_cell(raw, style, width)
+    if line is not None:
+        return line
     w = max(width - 6.0, 12.0)
     p = Paragraph(escape(raw), style)
     rough = len(raw) * 0.6 * style.fontSize / w * style.leading  # height if it all wraps

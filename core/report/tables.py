@@ -8,7 +8,7 @@ from __future__ import annotations
 
 from collections.abc import Iterable
 
-from reportlab.platypus import Paragraph, Table
+from reportlab.platypus import Flowable, LongTable, Paragraph, Table
 
 from core.assess.results import LimitState, MemberResult, StationResult
 from core.checks.flags import Level, worst
@@ -67,7 +67,7 @@ def grid(
     num_cols = set(numeric)
 
     def cell(v, j, head=False):
-        if isinstance(v, Paragraph):
+        if isinstance(v, Flowable):
             return v
         style = (
             (st.head_num if head else st.cell_num)
@@ -82,7 +82,7 @@ def grid(
 
     data = [[cell(h, j, True) for j, h in enumerate(header)]]
     data += [[cell(v, j) for j, v in enumerate(r)] for r in rows]
-    t = Table(data, colWidths=widths, repeatRows=1, hAlign="LEFT")
+    t = LongTable(data, colWidths=widths, repeatRows=1, hAlign="LEFT")
     t.setStyle(make_table_style(*extra))
     return t
 
