@@ -38,7 +38,7 @@ class CellLine(Flowable):
         st = self.style
         room = availWidth - st.leftIndent - st.rightIndent - st.firstLineIndent
         if self.text_width > room + 1e-8 or st.alignment not in (TA_LEFT, TA_RIGHT, TA_CENTER):
-            self._para = self._para or Paragraph(escape(self.s), st)
+            self._para = self._para or CellParagraph(escape(self.s), st)
             self.width, self.height = self._para.wrap(availWidth, availHeight)
             return self.width, self.height
         self._para = None
@@ -68,6 +68,22 @@ class CellLine(Flowable):
         c.setFont(st.fontName, st.fontSize, st.leading)
         c.drawString(x, y, self.s)
         c.restoreState()
+
+
+class CellParagraph(Paragraph):
+    """A Paragraph in a table cell: laid out once per width. A table measures its cells
+    when it is sized, split at a page end and drawn; a Paragraph's lines depend on its
+    width alone, so the lines found for a width serve again for it."""
+
+    def wrap(self, availWidth: float, availHeight: float) -> tuple[float, float]:
+        memo = getattr(self, "_wrapped", None)
+        if memo is not None and memo[0] == availWidth:
+            self.width, self.height, self.blPara = memo[1], memo[2], memo[3]
+            return memo[1], memo[2]
+        w, h = super().wrap(availWidth, availHeight)
+        if getattr(self, "blPara", None) is not None:
+            self._wrapped = (availWidth, w, h, self.blPara)
+        return w, h
 
 
 def plain_cell(s: str, style: ParagraphStyle, width: float) -> CellLine | None:
