@@ -63,11 +63,10 @@ class CellLine(Flowable):
             y = self.height - st.fontSize
         else:
             y = self.height - getAscent(st.fontName, st.fontSize)
-        c.saveState()
+        # drawOn has saved the canvas state around draw (and restores it after)
         c.setFillColor(st.textColor)
         c.setFont(st.fontName, st.fontSize, st.leading)
         c.drawString(x, y, self.s)
-        c.restoreState()
 
 
 class CellParagraph(Paragraph):
