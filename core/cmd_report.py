@@ -238,6 +238,10 @@ def _in_pool(
     At most ``jobs`` surveys are given out at a time, so when a worker dies the surveys then
     in hand are the only suspects: each is tried once more alone (a second death fails it
     alone), and the rest go on side by side in a new pool."""
+    from core.report.styles import register_fonts
+
+    register_fonts()  # the report's modules and fonts loaded once here, before the workers
+    # are forked from this process (they inherit them, not each load its own)
     results: dict[Path, tuple] = {}
     lines = _InOrder(files, results, voice)
     order = {f: i for i, f in enumerate(files)}
