@@ -29,6 +29,7 @@ from core.assess.station import (
     station_flags,
     web_readings,
 )
+from core.assess.tomeasure import unread_flag
 from core.checks.flags import Flag, Level, flag_rivet_line
 from core.errors import InputError
 
@@ -215,6 +216,9 @@ def assess_member(
                 opts.thresholds,
             )
     mflags += detail_flags(member, details, unattached)
+    unread = unread_flag(member)
+    if unread is not None:
+        mflags.append(unread)
     if cases and mf["g"].source == NOT_RECORDED:
         mflags.append(
             Flag(
