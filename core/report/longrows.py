@@ -1,8 +1,10 @@
 """A table of thousands of rows laid out a page at a time.
 
 reportlab splits a table at a page end into the part that fits and a new table of all the
-rows left, whose construction and styling go over every one of them again: a table of R
-rows over P pages costs about R x P / 2 rows, which for the flag list of a 1,000-station
+rows left, whose construction and styling go over every one of them again (and, in
+reportlab 5.1, measures every one of them: its LongTable stops measuring at the page end
+only in a table with spanned cells): a table of R rows over P pages costs about R x P / 2
+rows, which for the flag list of a 1,000-station
 survey (some 13,000 rows, 400 pages) was most of the report's time. :class:`LongRows` hands
 reportlab a table of one block of rows at a time (enough to fill the page), lets it split
 that, and keeps the rest as its own rows; each page then costs one block, whatever the
