@@ -8,9 +8,10 @@ a folder, every survey file (``*.json``) and field store in it is reported in tu
 progress bar on stderr and one summary line per survey on stdout; a bad file never stops
 the rest, and the exit status is 1 when any survey failed (they are listed at the end).
 The surveys of a folder are reported side by side in worker processes (``--jobs N``,
-default: every core; ``--jobs 1`` reports them one after the other in this process); a
-survey whose worker dies (out of memory, killed) is tried once more alone and, if it dies
-again, reported as failed like any other bad file.
+default: every core this process may use; ``--jobs 1`` reports them one after the other in
+this process); the summary lines come in the folder's order. A survey whose worker dies (out
+of memory, killed) is tried once more alone and, if it dies again, reported as failed like
+any other bad file; the rest go on side by side.
 ``--quiet`` leaves out the progress and the lines of the surveys that went well.
 """
 
@@ -21,7 +22,8 @@ import multiprocessing
 import os
 import signal
 import sys
-from concurrent.futures import Future, ProcessPoolExecutor, as_completed
+from collections import deque
+from concurrent.futures import FIRST_COMPLETED, Future, ProcessPoolExecutor, wait
 from concurrent.futures.process import BrokenProcessPool
 from pathlib import Path
 
@@ -61,7 +63,7 @@ def register(sub: argparse._SubParsersAction) -> None:
         type=_jobs,
         metavar="N",
         help="folder input: surveys reported side by side in N processes (default: every "
-        "core; 1: one after the other)",
+        "core this process may use; 1: one after the other)",
     )
     add_band_arguments(p)
     add_arguments(p)
@@ -144,38 +146,120 @@ def _stop(pool: ProcessPoolExecutor) -> None:
         proc.terminate()
 
 
-def _in_pool(
-    files: list[Path], outs: dict[Path, Path], units, args, jobs: int, bar: Steps, voice: Voice
-) -> dict:
-    """Every survey's result, reported in ``jobs`` worker processes (the bar moves as each
-    ends); a survey whose worker died is tried once more alone."""
-    results: dict[Path, tuple] = {}
-    retry: list[Path] = []
-    with _pool(jobs) as pool:
-        futures: dict[Future, Path] = {
-            pool.submit(report_one, f, outs[f], units, args): f for f in files
-        }
+def default_jobs() -> int:
+    """The cores this process may run on: its CPU affinity where the system tells it (a
+    job scheduler, a container or ``taskset`` may give it fewer than the machine has),
+    else every core of the machine; at least 1."""
+    count = getattr(os, "process_cpu_count", None)  # Python 3.13+: the affinity's count
+    if count is not None:
+        n = count()
+    else:
         try:
-            for fut in as_completed(futures):
-                f = futures[fut]
-                try:
-                    results[f] = fut.result()
-                except BrokenProcessPool:
-                    retry.append(f)
-                    continue
-                bar.step(len(results) - 1, f.name)
-                _said(f, results[f], voice)
+            n = len(os.sched_getaffinity(0))
+        except (AttributeError, OSError):  # not on this system
+            n = os.cpu_count()
+    return max(1, n or 1)
+
+
+class _InOrder:
+    """Summary lines in the folder's order: a survey's line is printed once every survey
+    before it has its result (the bar moves as each ends, whatever the order)."""
+
+    def __init__(self, files: list[Path], results: dict, voice: Voice) -> None:
+        self.files, self.results, self.voice, self.next = files, results, voice, 0
+
+    def flush(self) -> None:
+        while self.next < len(self.files) and self.files[self.next] in self.results:
+            f = self.files[self.next]
+            _said(f, self.results[f], self.voice)
+            self.next += 1
+
+
+def _outcome(fut: Future) -> tuple:
+    """A finished survey's result; an error raised out of the worker (not one of the
+    survey's, which :func:`report_one` returns) fails that survey alone. Raises
+    BrokenProcessPool when the worker process died."""
+    try:
+        return fut.result()
+    except BrokenProcessPool:
+        raise
+    except (Exception, SystemExit) as e:
+        return "failed", f"the worker process reporting it failed ({type(e).__name__}: {e})"
+
+
+def _side_by_side(queue: deque, task, jobs: int, ended) -> list[Path]:
+    """Report the surveys of ``queue`` in one pool of ``jobs`` workers, at most ``jobs`` in
+    hand at a time, calling ``ended(f, result)`` as each ends. When a worker dies the pool
+    is broken: the surveys then in hand are returned (the suspects; one of them killed it)
+    and the rest stay in ``queue``."""
+    with _pool(jobs) as pool:
+        running: dict[Future, Path] = {}
+        try:
+            while queue or running:
+                while queue and len(running) < jobs:
+                    f = queue.popleft()
+                    running[pool.submit(*task(f))] = f
+                done, _ = wait(running, return_when=FIRST_COMPLETED)
+                suspects = []
+                for fut in done:
+                    f = running.pop(fut)
+                    try:
+                        ended(f, _outcome(fut))
+                    except BrokenProcessPool:
+                        suspects.append(f)
+                if suspects:  # every survey still in hand went down with the pool
+                    return suspects + list(running.values())
         except KeyboardInterrupt:
             _stop(pool)
             raise
-    for f in sorted(retry):
-        with _pool(1) as alone:
-            try:
-                results[f] = alone.submit(report_one, f, outs[f], units, args).result()
-            except BrokenProcessPool as e:
-                results[f] = ("failed", f"the worker process reporting it stopped ({e})")
-        bar.step(len(results) - 1, f.name)
-        _said(f, results[f], voice)
+    return []
+
+
+def _alone(f: Path, task) -> tuple:
+    """One survey in a worker of its own (a suspect of a worker's death): its result, or
+    failed when this worker dies too."""
+    with _pool(1) as pool:
+        try:
+            return _outcome(pool.submit(*task(f)))
+        except BrokenProcessPool:
+            return "failed", (
+                "the worker process reporting it stopped (killed, out of memory or crashed; "
+                "twice, the second time alone)"
+            )
+        except KeyboardInterrupt:
+            _stop(pool)
+            raise
+
+
+def _in_pool(
+    files: list[Path], outs: dict[Path, Path], units, args, jobs: int, bar: Steps, voice: Voice
+) -> dict:
+    """Every survey's result, reported in ``jobs`` worker processes; the summary lines come
+    in the folder's order.
+
+    At most ``jobs`` surveys are given out at a time, so when a worker dies the surveys then
+    in hand are the only suspects: each is tried once more alone (a second death fails it
+    alone), and the rest go on side by side in a new pool."""
+    from core.report.styles import register_fonts
+
+    register_fonts()  # the report's modules and fonts loaded once here, before the workers
+    # are forked from this process (they inherit them, not each load its own)
+    results: dict[Path, tuple] = {}
+    lines = _InOrder(files, results, voice)
+    order = {f: i for i, f in enumerate(files)}
+
+    def task(f: Path) -> tuple:
+        return report_one, f, outs[f], units, args
+
+    def ended(f: Path, result: tuple) -> None:
+        results[f] = result
+        bar.ended(len(results), f.name)
+        lines.flush()
+
+    queue = deque(files)
+    while queue:
+        for f in sorted(_side_by_side(queue, task, jobs, ended), key=order.__getitem__):
+            ended(f, _alone(f, task))
     return results
 
 
@@ -191,7 +275,7 @@ def run_folder(folder: Path, outdir: Path, units: str | None, args: argparse.Nam
     outs = _outputs(files, outdir)
     voice = Voice.of(args)
     bar = Steps(len(files), voice)
-    jobs = min(getattr(args, "jobs", None) or os.cpu_count() or 1, len(files))
+    jobs = min(getattr(args, "jobs", None) or default_jobs(), len(files))
     if jobs > 1:
         results = _in_pool(files, outs, units, args, jobs, bar, voice)
     else:

@@ -161,6 +161,16 @@ class Steps:
         else:
             self.err.print(f"[{i + 1}/{self.n}] {name}")
 
+    def ended(self, k: int, name: str) -> None:
+        """``k`` items have ended, the last of them named ``name`` (items running side by
+        side end in any order)."""
+        if self.voice.quiet:
+            return
+        if self._bar is not None:
+            self._bar.update(self._task, completed=k, description=name)
+        else:
+            self.err.print(f"[{k}/{self.n}] {name}")
+
     def done(self) -> None:
         if self._bar is not None:
             self._bar.update(self._task, completed=self.n, description="done")

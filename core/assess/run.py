@@ -9,7 +9,6 @@ from collections.abc import Callable
 from core.assess.assumptions import assumptions
 from core.assess.details import MemberDetails, SupportData, member_details
 from core.assess.effects import LiveCase, effects_at, live_table, station_effects
-from core.assess.gcpause import collector_paused
 from core.assess.inputs import web_geometry
 from core.assess.options import AssessOptions
 from core.assess.panels import layout
@@ -41,6 +40,7 @@ from core.families import aashto, aisc, build_family, en1993  # noqa: F401
 from core.families.base import Family
 from core.families.context import MemberSetup, StationContext
 from core.families.liveload import NOT_RECORDED
+from core.gcpause import collector_paused
 from core.section import analyse
 from core.survey.model import Member, Survey
 from core.survey.readings import station_loss, station_stats

@@ -19,6 +19,7 @@ from core.bands.cli import band_options
 from core.checks.flags import Level
 from core.choices import options_for
 from core.errors import InputError
+from core.gcpause import collector_paused
 from core.outputs import atomic_output, check_output
 from core.report import cover, member, notes, notmeasured
 from core.report.page import PageInfo, canvas_maker, document
@@ -136,6 +137,19 @@ def build_report(
     if units not in (None, "si", "us"):
         raise InputError(f"unit system {units!r} is not 'si' or 'us'")
     check_output(out, [path], "pdf", force=force)
+    with collector_paused():
+        return _build(path, out, units, standard, options, args, force)
+
+
+def _build(
+    path: str | Path,
+    out: str | Path,
+    units: str | None,
+    standard: str | None,
+    options: AssessOptions | None,
+    args: argparse.Namespace | None,
+    force: bool,
+) -> Report:
     survey, problems, src = read_source(path)
     if args is not None:
         opts = options_for(args, survey)

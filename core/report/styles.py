@@ -25,6 +25,7 @@ from reportlab.platypus import Paragraph, TableStyle
 
 from core.checks.flags import Level
 from core.glossary import LEVELS, RIVET_STATES
+from core.report.cells import CellLine, CellParagraph, plain_cell
 
 SANS, SANS_BOLD, SANS_ITALIC = "AsfSans", "AsfSans-Bold", "AsfSans-Oblique"
 
@@ -82,12 +83,16 @@ def esc(s: object) -> str:
 MAX_CELL_HEIGHT = 260.0
 
 
-def cell_text(s: object, style: ParagraphStyle, width: float) -> Paragraph:
-    """A table cell that prints survey text literally, ``width`` pt wide (padding included);
-    cut when it would be taller than :data:`MAX_CELL_HEIGHT`, never a layout error."""
+def cell_text(s: object, style: ParagraphStyle, width: float) -> Paragraph | CellLine:
+    """A table cell that prints survey text literally, ``width`` pt wide (padding included):
+    one :class:`CellLine` when it fits on a line, else a Paragraph, cut when it would be
+    taller than :data:`MAX_CELL_HEIGHT`, never a layout error."""
     raw = text(s)
+    line = plain_cell(raw, style, width)
+    if line is not None:
+        return line
     w = max(width - 6.0, 12.0)
-    p = Paragraph(escape(raw), style)
+    p = CellParagraph(escape(raw), style)
     rough = len(raw) * 0.6 * style.fontSize / w * style.leading  # height if it all wraps
     if rough < MAX_CELL_HEIGHT / 2:
         return p
@@ -95,7 +100,7 @@ def cell_text(s: object, style: ParagraphStyle, width: float) -> Paragraph:
     n = len(raw)
     while h > MAX_CELL_HEIGHT and n > 0:
         n = int(n * min(0.9, 0.95 * MAX_CELL_HEIGHT / h))
-        p = Paragraph(f"{escape(raw[:n])} <i>[… {len(raw) - n:,} more characters]</i>", style)
+        p = CellParagraph(f"{escape(raw[:n])} <i>[… {len(raw) - n:,} more characters]</i>", style)
         h = p.wrap(w, 1e9)[1]
     return p
 

@@ -8,11 +8,12 @@ from __future__ import annotations
 
 from collections.abc import Iterable
 
-from reportlab.platypus import Paragraph, Table
+from reportlab.platypus import Flowable, LongTable, Paragraph, Table
 
 from core.assess.results import LimitState, MemberResult, StationResult
 from core.checks.flags import Level, worst
 from core.names import annotated
+from core.report.cells import CellParagraph
 from core.report.fmt import (
     DASH,
     pct,
@@ -24,6 +25,7 @@ from core.report.fmt import (
     unit_label,
     value,
 )
+from core.report.longrows import BLOCK, LongRows
 from core.report.styles import (
     BAND,
     MUTED,
@@ -62,12 +64,13 @@ def grid(
     widths: list[float],
     numeric: Iterable[int] = (),
     extra: tuple = (),
-) -> Table:
-    """A table of Paragraph cells; the ``numeric`` columns are right-aligned numbers."""
+) -> Table | LongRows:
+    """A table of one-line cells and Paragraphs; the ``numeric`` columns are right-aligned
+    numbers. A table of many rows is a :class:`LongRows` (laid out a page at a time)."""
     num_cols = set(numeric)
 
     def cell(v, j, head=False):
-        if isinstance(v, Paragraph):
+        if isinstance(v, Flowable):
             return v
         style = (
             (st.head_num if head else st.cell_num)
@@ -77,12 +80,14 @@ def grid(
             else st.cell
         )
         if isinstance(v, Markup):
-            return Paragraph(v, style)
+            return CellParagraph(v, style)
         return cell_text(v, style, widths[j])
 
-    data = [[cell(h, j, True) for j, h in enumerate(header)]]
-    data += [[cell(v, j) for j, v in enumerate(r)] for r in rows]
-    t = Table(data, colWidths=widths, repeatRows=1, hAlign="LEFT")
+    head = [cell(h, j, True) for j, h in enumerate(header)]
+    body = [[cell(v, j) for j, v in enumerate(r)] for r in rows]
+    if len(body) > BLOCK:  # laid out a page at a time (see core.report.longrows)
+        return LongRows(head, body, widths, make_table_style(*extra).getCommands())
+    t = LongTable([head, *body], colWidths=widths, repeatRows=1, hAlign="LEFT")
     t.setStyle(make_table_style(*extra))
     return t
 

@@ -17,6 +17,7 @@ from pathlib import Path
 from typing import Any
 
 from core.errors import AsfoundError, InputError, OutputError, SchemaError, StoreError
+from core.gcpause import collector_paused
 from core.jsonfile import read_json
 from core.outputs import atomic_output, check_output, write_atomic
 from core.survey.model import Survey
@@ -90,7 +91,8 @@ def load_survey(path: str | Path) -> tuple[Survey, list[Problem]]:
         SchemaError: malformed, truncated, newer version, or any error of meaning (the
         message lists every error with its place).
     """
-    model, probs = check_file(path)
+    with collector_paused():
+        model, probs = check_file(path)
     errs = errors(probs)
     if errs or model is None:
         lines = "\n  ".join(str(e) for e in errs) or "the survey could not be read"

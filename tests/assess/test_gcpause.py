@@ -8,7 +8,7 @@ import threading
 
 import pytest
 
-from core.assess.gcpause import collector_paused
+from core.gcpause import collector_paused
 
 
 @pytest.mark.parametrize("before", [True, False])

@@ -109,8 +109,8 @@ def test_a_merged_store_lists_the_merge_decisions(tmp_path):
 
 
 def test_folder_in_worker_processes_gives_what_one_process_gives(tmp_path, capsys):
-    """--jobs 2 writes the same reports and summary lines as --jobs 1 (their order may
-    differ: each is said when its survey is done)."""
+    """--jobs 2 writes the same reports and summary lines as --jobs 1, in the same order
+    (the folder's)."""
     src = tmp_path / "in"
     src.mkdir()
     (src / "a.json").write_bytes(SI_SAMPLE.read_bytes())
@@ -121,7 +121,7 @@ def test_folder_in_worker_processes_gives_what_one_process_gives(tmp_path, capsy
         out = tmp_path / f"out{jobs}"
         assert main(["report", str(src), "-o", str(out), "--jobs", jobs]) == 1
         cap = capsys.readouterr()
-        said[jobs] = sorted(cap.out.replace(str(out), "OUT").splitlines())
+        said[jobs] = cap.out.replace(str(out), "OUT").splitlines()
         assert "3/3" in cap.err and "1 of 3 survey(s) failed: b-bad.json" in cap.err
         assert sorted(p.name for p in out.iterdir()) == ["a.pdf", "c.pdf"]
     assert said["1"] == said["2"]
@@ -150,6 +150,8 @@ def test_a_worker_that_dies_fails_only_its_survey(tmp_path, capsys, monkeypatch)
     assert "FAILED  b.json: the worker process reporting it stopped" in cap.out
     assert "1 of 3 survey(s) failed: b.json" in cap.err
     assert sorted(p.name for p in out.iterdir()) == ["a.pdf", "c.pdf"]
+    said = [line.split()[1] for line in cap.out.splitlines() if not line.startswith(" ")]
+    assert said == ["a.json:", "b.json:", "c.json:"]  # the folder's order
 
 
 def test_jobs_must_be_a_whole_number_in_range(capsys):
