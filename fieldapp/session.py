@@ -7,7 +7,6 @@ input come back as :class:`core.errors.InputError` with core's message.
 
 from __future__ import annotations
 
-import getpass
 import math
 from dataclasses import dataclass
 from pathlib import Path
@@ -18,7 +17,7 @@ from core.survey import FieldStore, Member, Saved, Survey, UndoPlan, import_surv
 from core.survey.guard import Hold, as_read_text, hold_reasons
 from core.survey.model import RIVET_STATES
 from core.survey.readings import nominal_of
-from fieldapp import describe, templates
+from fieldapp import describe, identity, templates
 from fieldapp.places import Place, PlaceBook, new_store_path
 
 #: the next state when a rivet is tapped
@@ -84,9 +83,11 @@ class Session:
         return cls(FieldStore.open(path), book, who)
 
     @classmethod
-    def from_template(cls, folder: Path, book: PlaceBook, survey_id: str, system: str) -> Session:
+    def from_template(
+        cls, folder: Path, book: PlaceBook, survey_id: str, system: str, who: str = ""
+    ) -> Session:
         """A new store with one member from the girder template and one station at mid-span."""
-        who = _user()
+        who = who or _user()
         path = new_store_path(folder, survey_id)
         store = FieldStore.create(path, templates.header(survey_id, system, who), who=who)
         member = templates.girder_member("G1", system)
@@ -95,11 +96,11 @@ class Session:
         return cls(store, book, who)
 
     @classmethod
-    def from_sample(cls, folder: Path, book: PlaceBook, sample: Path) -> Session:
+    def from_sample(cls, folder: Path, book: PlaceBook, sample: Path, who: str = "") -> Session:
         """A new store holding a copy of a sample survey file (the file is checked first)."""
         path = new_store_path(folder, sample.stem)
-        import_survey(sample, path, who=_user())
-        return cls.open(path, book)
+        import_survey(sample, path, who=who or _user())
+        return cls.open(path, book, who)
 
     def close(self) -> None:
         self.store.close()
@@ -322,7 +323,6 @@ class Session:
 
 
 def _user() -> str:
-    try:
-        return getpass.getuser()
-    except (KeyError, OSError):
-        return "field"
+    """The inspector named on this device (:mod:`fieldapp.identity`), never the OS login."""
+    who = identity.load()
+    return who.who if who is not None else "inspector not named"

@@ -269,6 +269,11 @@ class StoreOps:
         """Replace the notes of a station (the old text stays in the history)."""
         return self.update_station(member_id, station_id, {"notes": str(text)}, who)
 
+    def delete_member(self, member_id: str, who: str) -> None:
+        """Withdraw a member softly, with its stations (they stay in the store and the
+        history; undo brings them back)."""
+        self._delete("member", member_id, "", member_id, who)
+
     def delete_station(self, member_id: str, station_id: str, who: str) -> None:
         self._delete("station", member_id, "", station_id, who)
 
@@ -385,6 +390,13 @@ class StoreOps:
                     "SELECT id FROM entity WHERE kind = ? AND member = ? AND station = ?",
                     (kind, member, station),
                 )
+            }
+
+    def used_member_ids(self) -> set[str]:
+        """Every member id ever used in the store, withdrawn ones included."""
+        with self._lock:
+            return {
+                r[0] for r in self._conn.execute("SELECT id FROM entity WHERE kind = 'member'")
             }
 
     def _next_id(self, kind: str, member: str, station: str, prefix: str) -> str:

@@ -6,12 +6,14 @@ from fieldapp.drawing import SectionView
 from fieldapp.pad import FitLabel, NumPad, PadPanel, PadSheet
 from fieldapp.rivetmap import Overview, RivetLegend, StretchAxis
 from fieldapp.screens.entries import EntryRow
+from fieldapp.screens.history import HistoryScreen
 from fieldapp.screens.member import MemberScreen
 from fieldapp.screens.results import ResultsScreen
 from fieldapp.screens.rivets import RivetsScreen
 from fieldapp.screens.station import StationScreen
 from fieldapp.screens.surveys import SurveysScreen
 from fieldapp.sheets import ConfirmSheet
+from fieldapp.textsheet import TextSheet
 
 
 class Root(BoxLayout):
@@ -22,6 +24,7 @@ __all__ = [
     "ConfirmSheet",
     "EntryRow",
     "FitLabel",
+    "HistoryScreen",
     "MemberScreen",
     "NumPad",
     "Overview",
@@ -35,4 +38,5 @@ __all__ = [
     "StationScreen",
     "StretchAxis",
     "SurveysScreen",
+    "TextSheet",
 ]
