@@ -31,7 +31,7 @@ from fieldapp.sheets import ConfirmSheet
 from fieldapp.textsheet import TextSheet
 
 KV_DIR = Path(__file__).resolve().parent / "kv"
-KV_FILES = ("theme.kv", "pad.kv", "sheets.kv", "text.kv", "surveys.kv", "member.kv",
+KV_FILES = ("theme.kv", "pad.kv", "sheets.kv", "text.kv", "surveys.kv", "asbuilt.kv", "member.kv",
             "station.kv", "rivets.kv", "results.kv", "history.kv", "root.kv")  # fmt: skip
 SCREENS = ("surveys", "member", "station", "rivets", "results", "history")
 ACK_WAIT = 0.25  # s: an entry's acknowledgement waits at most this long for its result

@@ -117,12 +117,27 @@ def _member_rows(m: dict, lu: str) -> list[Row]:
     return [
         Row(("member", "label"), "Name shown", m.get("label") or "", kind="text"),
         Row(("member", "span"), "Span", _n(span["value"]), span["unit"]),
-        Row(("member", "do"), "Stiffener spacing do", _n(do and do["value"]),
-            (do or {}).get("unit", lu), optional=True),  # fmt: skip
-        Row(("member", "condition"), "Condition", m.get("condition") or NOT_SET,
-            kind="choice", choices=CONDITIONS),  # fmt: skip
-        Row(("member", "structure_type"), "Structure type",
-            m.get("structure_type") or NOT_SET, kind="choice", choices=STRUCTURE_TYPES),  # fmt: skip
+        Row(
+            ("member", "do"),
+            "Stiffener spacing do",
+            _n(do and do["value"]),
+            (do or {}).get("unit", lu),
+            optional=True,
+        ),
+        Row(
+            ("member", "condition"),
+            "Condition",
+            m.get("condition") or NOT_SET,
+            kind="choice",
+            choices=CONDITIONS,
+        ),
+        Row(
+            ("member", "structure_type"),
+            "Structure type",
+            m.get("structure_type") or NOT_SET,
+            kind="choice",
+            choices=STRUCTURE_TYPES,
+        ),
     ]
 
 
@@ -131,13 +146,28 @@ def _steel_rows(h: dict, sysu: str) -> list[Row]:
     su = STRESS_UNIT[sysu]
     fy, fu = mat.get("Fy") or {}, mat.get("Fu") or {}
     return [
-        Row(("header", "standard"), "Standard family", h.get("standard", "aashto"),
-            kind="choice", choices=STANDARDS),  # fmt: skip
+        Row(
+            ("header", "standard"),
+            "Standard family",
+            h.get("standard", "aashto"),
+            kind="choice",
+            choices=STANDARDS,
+        ),
         Row(("header", "year_built"), "Year built", _n(h.get("year_built")), optional=True),
-        Row(("header", "Fy"), "Yield strength Fy (empty: assumed)", _n(fy.get("value")),
-            fy.get("unit", su), optional=True),  # fmt: skip
-        Row(("header", "Fu"), "Tensile strength Fu (empty: assumed)", _n(fu.get("value")),
-            fu.get("unit", su), optional=True),  # fmt: skip
+        Row(
+            ("header", "Fy"),
+            "Yield strength Fy (empty: assumed)",
+            _n(fy.get("value")),
+            fy.get("unit", su),
+            optional=True,
+        ),
+        Row(
+            ("header", "Fu"),
+            "Tensile strength Fu (empty: assumed)",
+            _n(fu.get("value")),
+            fu.get("unit", su),
+            optional=True,
+        ),
     ]
 
 
@@ -185,12 +215,26 @@ def _load_rows(m: dict, sysu: str) -> list[Row]:
     live = m.get("live_load") or {}
     lu = LOAD_UNIT[sysu]
     return [
-        Row(("load", "dc"), "Dead load DC per girder", _n((ss.get("dc") or {}).get("value")),
-            (ss.get("dc") or {}).get("unit", lu), optional=True),  # fmt: skip
-        Row(("load", "dw"), "Wearing surface DW per girder", _n((ss.get("dw") or {}).get("value")),
-            (ss.get("dw") or {}).get("unit", lu), optional=True),  # fmt: skip
-        Row(("load", "distribution"), "Live load lanes per girder", _n(live.get("distribution")),
-            optional=True),  # fmt: skip
+        Row(
+            ("load", "dc"),
+            "Dead load DC per girder",
+            _n((ss.get("dc") or {}).get("value")),
+            (ss.get("dc") or {}).get("unit", lu),
+            optional=True,
+        ),
+        Row(
+            ("load", "dw"),
+            "Wearing surface DW per girder",
+            _n((ss.get("dw") or {}).get("value")),
+            (ss.get("dw") or {}).get("unit", lu),
+            optional=True,
+        ),
+        Row(
+            ("load", "distribution"),
+            "Live load lanes per girder",
+            _n(live.get("distribution")),
+            optional=True,
+        ),
     ]
 
 

@@ -395,9 +395,7 @@ class StoreOps:
     def used_member_ids(self) -> set[str]:
         """Every member id ever used in the store, withdrawn ones included."""
         with self._lock:
-            return {
-                r[0] for r in self._conn.execute("SELECT id FROM entity WHERE kind = 'member'")
-            }
+            return {r[0] for r in self._conn.execute("SELECT id FROM entity WHERE kind = 'member'")}
 
     def _next_id(self, kind: str, member: str, station: str, prefix: str) -> str:
         used = self.used_ids(kind, member, station)

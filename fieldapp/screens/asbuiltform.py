@@ -43,9 +43,11 @@ class AsBuiltForm:
             self._group_actions(s, head, box)
 
     def _value_row(self, row):
-        w = Factory.ValueRow(label=row.label + (f" ({row.unit})" if row.unit else ""))
+        w = Factory.ValueRow()
+        w.label = row.label + (f" ({row.unit})" if row.unit else "")
         if row.kind == "number":
-            b = Factory.NumberField(size_hint_x=None, width=dp(VALUE_DP), value=row.text)
+            b = Factory.NumberField(size_hint_x=None, width=dp(VALUE_DP))
+            b.value, b.unit = row.text, row.unit
         else:
             b = Factory.SmallBig(text=row.text or "-", size_hint_x=None, width=dp(VALUE_DP))
         b.bind(on_press=partial(self.ask_row, row))
@@ -137,8 +139,10 @@ class AsBuiltForm:
         app = App.get_running_app()
         app.text_sheet.ask(
             f"New {side} cover plate (outside the others), member {app.session.member_id}",
-            [(f"Width ({app.session.length_unit})", ""),
-             (f"Thickness ({app.session.length_unit})", "")],  # fmt: skip
+            [
+                (f"Width ({app.session.length_unit})", ""),
+                (f"Thickness ({app.session.length_unit})", ""),
+            ],
             lambda b, t: self._do(
                 f"{side} cover plate {b} x {t}", lambda: asbuilt.add_cover(app.session, side, b, t)
             ),
@@ -152,7 +156,8 @@ class AsBuiltForm:
             "It stays in the history and can be undone.",
             "Remove",
             lambda: self._do(
-                f"removal of {side} plate {n}", lambda: asbuilt.remove_cover(app.session, side, n - 1)
+                f"removal of {side} plate {n}",
+                lambda: asbuilt.remove_cover(app.session, side, n - 1),
             ),
         )
 
