@@ -50,7 +50,8 @@ def register(sub: argparse._SubParsersAction) -> None:
         "--since",
         type=float,
         metavar="YEAR",
-        help="power law: the year corrosion began (default: the year built)",
+        help="the year corrosion began, for the power law and for the rate of a region "
+        "read in the latest survey only (default: the year built)",
     )
     p.add_argument(
         "--tolerance",
@@ -155,7 +156,7 @@ def _print(r, system: str) -> None:
                 rs.station,
                 rs.label,
                 " / ".join(f"{from_internal(t, 'length', L):.3f}" for t in rs.t),
-                from_internal(rt.r, "length", L),
+                from_internal(rt.r, "length", L) if rt.has_rate else None,
                 None if rt.se is None else from_internal(rt.se, "length", L),
                 rt.method,
                 from_internal(r.projected_t(rs, r.horizon), "length", L),

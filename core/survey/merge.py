@@ -14,7 +14,8 @@ The rule:
   a station or member to ``<id>-2`` (``-3``, ...); its entries and history go with it.
 * For an entry both stores have, each field (and whether it is withdrawn) is taken from
   the store whose changes after the common start touched it; when both did and the
-  values differ, the value of the later change is current: later by time (UTC), ties by
+  values differ, the value of the later change is current: later by time (each row's
+  ISO 8601 time read as an instant in UTC; a malformed one refuses the store), ties by
   device id, then person and content, so ``merge(A, B)`` and ``merge(B, A)`` are the same
   store. Both values stay in the history and the pair is listed as a conflict. If taking
   fields from both would make an entry that is not valid by itself (a band whose start
@@ -215,12 +216,12 @@ def _move_aside(sa: Side, sb: Side, side: Side, post, e: ERow, kept: ERow, confl
         if (x.kind, x.member, x.station) == e.key()[:3]
     }
     new = _fresh(e.kind, e.id, used)
-    t = _added(post).get(e.key(), ("", ""))
+    t = _added(post).get(e.key(), ((), "", ""))
     rename(side, e.uid, new, post)
     conflicts.append(
         Conflict(
             "renamed", e.kind, e.member, e.station, e.id, "id", e.uid, kept.id, new,
-            "", "", str(t[0]), str(t[1]),
+            "", "", str(t[1]), str(t[2]),
             f"{e.kind} {e.id!r} was made on one device after an earlier merge had given "
             f"that id to another entry; it is now {new!r}",
         )
@@ -253,13 +254,14 @@ def _fresh(kind: str, ident: str, used: set[str]) -> str:
     return f"{prefix}{k}"
 
 
-def _added(post: list[Change]) -> dict[tuple, tuple]:
-    """The order of the change that added each entry (by its place and id)."""
-    out: dict[tuple, tuple] = {}
+def _added(post: list[Change]) -> dict[tuple, tuple[tuple, str, str]]:
+    """The order, time (as written) and device of the change that added each entry (by
+    its place and id)."""
+    out: dict[tuple, tuple[tuple, str, str]] = {}
     for c in post:
         for r in c.rows:
             if r.action == "add":
-                out.setdefault(r.target(), c.order())
+                out.setdefault(r.target(), (c.order(), c.rows[0].at, c.rows[0].device))
     return out
 
 
@@ -277,9 +279,11 @@ def _rename_clashes(
                 pairs.append((e, o))
         added_a, added_b = _added(post_a), _added(post_b)
         for ea, eb in sorted(pairs, key=lambda p: p[0].key()):
-            ta = (*added_a.get(ea.key(), ("\uffff", ea.uid)), ea.uid)
-            tb = (*added_b.get(eb.key(), ("\uffff", eb.uid)), eb.uid)
-            if ta <= tb:
+            # (order, time, device) of the change that made each; not made after the
+            # common start: last, by uid
+            ta = (*added_a.get(ea.key(), (("\uffff", ea.uid), "\uffff", ea.uid)), ea.uid)
+            tb = (*added_b.get(eb.key(), (("\uffff", eb.uid), "\uffff", eb.uid)), eb.uid)
+            if (ta[0], ta[3]) <= (tb[0], tb[3]):
                 side, post, e, t, k_e, kt = sb, post_b, eb, tb, ea, ta
             else:
                 side, post, e, t, k_e, kt = sa, post_a, ea, ta, eb, tb
@@ -294,9 +298,9 @@ def _rename_clashes(
             conflicts.append(
                 Conflict(
                     "renamed", e.kind, e.member, e.station, e.id, "id", e.uid, k_e.id, new,
-                    kt[0], kt[1], t[0], t[1],
+                    kt[1], kt[2], t[1], t[2],
                     f"both devices made {e.kind} {e.id!r}; the one made later on device "
-                    f"{short(t[1])} ({t[0]}) is now {new!r}",
+                    f"{short(t[2])} ({t[1]}) is now {new!r}",
                 )
             )  # fmt: skip
 

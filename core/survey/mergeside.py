@@ -10,6 +10,8 @@ alone, since removing them under a program that has the store open could lose it
 
 from __future__ import annotations
 
+import datetime as _dt
+import functools
 import json
 import sqlite3
 from dataclasses import dataclass, field
@@ -25,6 +27,23 @@ _MAGIC = b"SQLite format 3\x00"
 
 class MergeError(InputError):
     """Two stores that cannot be merged (different surveys, the same file twice)."""
+
+
+@functools.lru_cache(maxsize=65536)
+def utc_key(at: str) -> str:
+    """The time ``at`` of a history row as a key that sorts as the instants do: ISO 8601
+    (an offset or ``Z``, fractional seconds; without an offset it is UTC, as asfound always
+    wrote it) turned to UTC and written with a fixed width, ``2026-05-06T05:08:09.123000``.
+
+    Raises:
+        ValueError: ``at`` is not an ISO 8601 date and time.
+    """
+    if not isinstance(at, str):
+        raise ValueError(f"{at!r} is not a text")
+    t = _dt.datetime.fromisoformat(at.strip())
+    if t.tzinfo is not None:
+        t = t.astimezone(_dt.UTC).replace(tzinfo=None)
+    return f"{t.year:04d}{t:-%m-%dT%H:%M:%S.%f}"
 
 
 class HRow(NamedTuple):
@@ -89,12 +108,13 @@ class Change:
         return self._cache["key"]
 
     def order(self) -> tuple:
-        """Where the change goes in a merged history: by time, then device id, then the
-        person and the content (the same whichever store is read first)."""
+        """Where the change goes in a merged history: by time (UTC, :func:`utc_key`), then
+        device id, then the person and the content (the same whichever store is read
+        first)."""
         if "order" not in self._cache:
             first = self.rows[0]
             body = json.dumps(self.key()[2])
-            self._cache["order"] = (first.at, first.device, first.who, body)
+            self._cache["order"] = (utc_key(first.at), first.device, first.who, body)
         return self._cache["order"]
 
     def set_rows(self, rows: list[HRow]) -> None:
@@ -187,6 +207,14 @@ def _read(conn: sqlite3.Connection, p: Path) -> Side:
         " old, new, undone, undoes FROM history ORDER BY id"
     ):
         row = HRow(*r)
+        try:
+            utc_key(row.at)
+        except ValueError:
+            raise StoreError(
+                f"{p}: history row {row.id} (change {row.change}, {row.action} of "
+                f"{row.kind} {row.entity!r}): its time {row.at!r} is not an ISO 8601 date "
+                "and time such as 2026-05-06T07:08:09.123+00:00"
+            ) from None
         for text in (row.old, row.new):
             if text is not None:
                 json.loads(text)  # a damaged value is refused here, not written on

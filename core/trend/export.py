@@ -49,11 +49,16 @@ def method_statement(r: TrendResult) -> list[str]:
         f"{r.step:g} years up to {r.horizon:g} years ahead; the year a measure crosses a "
         "threshold is interpolated linearly between two such runs.",
         f"Where a projected reading would fall below {T_FLOOR:g} mm the region would be "
-        "lost: its station's limit states end there (the region is held at that floor for "
-        "what neighbouring stations share with it, such as a web panel).",
+        "lost: its station's limit states end there (the region is held at that floor, or "
+        "as found where it was found thinner, e.g. a band at t = 0, for what neighbouring "
+        "stations share with it, such as a web panel).",
         "Band: the crossing with every rate one standard error faster and slower "
         "(about two chances in three for normal scatter).",
         f"Stations are matched by position within {r.series.tolerance:g} mm, parts by id.",
+        "A region read in the latest survey only: rate from the loss since built (nominal "
+        "less the thickness found, over the years since the year built), no standard error; "
+        "where the year built is not known it has no rate and is held as found (flagged "
+        "NO RATE in the notes: the projection there takes no further loss).",
     ]
     if not any(rt.has_band for rt in r.rates):
         out[4] = "No band: no rate has a standard error (two surveys, linear model)."
@@ -144,7 +149,8 @@ def trend_dict(r: TrendResult) -> dict[str, Any]:
                 "t_nominal_mm": rs.t_nominal,
                 "years": [round(y, 4) for y in rs.years],
                 "t_mm": list(rs.t),
-                "rate_mm_per_year": rt.r,
+                "has_rate": rt.has_rate,
+                "rate_mm_per_year": rt.r if rt.has_rate else None,
                 "se_mm_per_year": rt.se,
                 "method": rt.method,
                 "A": rt.A,
@@ -172,6 +178,11 @@ def trend_dict(r: TrendResult) -> dict[str, Any]:
                 "ended": t.ended or None,
             }
             for t in r.tracked
+        ],
+        "regions_without_rate": [
+            {"member": rs.member, "station": rs.station, "part": rs.part, "region": rs.region}
+            for rs, rt in zip(s.regions, r.rates, strict=True)
+            if not rt.has_rate
         ],
         "notes": list(r.notes),
     }

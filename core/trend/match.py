@@ -92,8 +92,12 @@ class RegionSeries:
             raise TrendError("a region series needs one thickness per year", where=self.name)
         if any(b <= a for a, b in itertools.pairwise(self.years)):
             raise TrendError(f"years {self.years} do not rise", where=self.name)
-        if not self.t_nominal > 0 or any(not v > 0 for v in self.t):
-            raise TrendError("thicknesses must be > 0 mm", where=self.name)
+        if not self.t_nominal > 0 or any(not v >= 0 for v in self.t):
+            raise TrendError(
+                "the nominal thickness must be > 0 mm and every thickness >= 0 mm (0: a "
+                "band fully lost)",
+                where=self.name,
+            )
 
     @property
     def key(self) -> Key:
@@ -351,8 +355,6 @@ def _regions(
         rs = RegionSeries(
             member_id, st.id, part, region, nominal, tuple(ys), tuple(ts), region in latest_bands
         )
-        if len(ys) < 2:
-            notes.append(f"{rs.name}: read in the latest survey only; no rate, held as found")
         out.append(rs)
     for k, t in enumerate(per[:-1]):
         for key in t:

@@ -7,7 +7,8 @@ falls exactly by the projected loss; a band given by its thickness ``t`` is thin
 same way. Loss bands and perforations keep the extent found at the latest survey (their
 growth is not projected), rivet states and loads are those of the latest survey. Where a
 projected reading would fall below :data:`T_FLOOR` the region would be lost: it is held at
-that floor (the station stays in the projected survey, because its neighbours share results
+that floor, or as found where it was found thinner (a band found at t = 0, fully lost, stays
+at 0; the station stays in the projected survey, because its neighbours share results
 with it, e.g. the thinnest station of a web panel; taking it out would make them look
 better) and the station's own limit states end there, with the reason.
 """
@@ -96,8 +97,6 @@ def projected_survey(
     for rs in regions:
         rate = rates[(rs.member, rs.station, rs.key)]
         loss = rate.loss(years, scenario)
-        if loss <= 0.0:
-            continue
         target = rs.t[-1] - loss
         station = next(s for s in members[rs.member]["stations"] if s["id"] == rs.station)
         reads = [
@@ -105,26 +104,34 @@ def projected_survey(
         ]
         if reads:
             mm = [r["value"] / from_internal(1.0, "length", r["unit"]) for r in reads]
-            shift = target - _stat(mm, policy)
+            shift = target - _stat(mm, policy) if loss > 0.0 else 0.0
             if min(mm) + shift < T_FLOOR:
-                lost.setdefault((rs.member, rs.station), _lost(rs))
-                shift = T_FLOOR - min(mm)
-            for r, v in zip(reads, mm, strict=True):
-                r["value"] = from_internal(v + shift, "length", r["unit"])
+                lost.setdefault((rs.member, rs.station), _lost(rs, loss, min(mm)))
+                shift = min(T_FLOOR - min(mm), 0.0)  # held at the floor, never above as found
+            if shift != 0.0:
+                for r, v in zip(reads, mm, strict=True):
+                    r["value"] = from_internal(v + shift, "length", r["unit"])
         band = next(
             (b for b in station["bands"] if b["id"] == rs.region and b["part"] == rs.part), None
         )
         if band is not None and band.get("t") is not None:  # the band's t governs its readings
             if target < T_FLOOR:
-                lost.setdefault((rs.member, rs.station), _lost(rs))
-                target = T_FLOOR
-            band["t"] = from_internal(target, "length", lu)
+                lost.setdefault((rs.member, rs.station), _lost(rs, loss, rs.t[-1]))
+                target = min(T_FLOOR, rs.t[-1])  # held at the floor, never above as found
+            if loss > 0.0:
+                band["t"] = from_internal(target, "length", lu)
     return Survey.model_validate(doc), lost
 
 
-def _lost(rs: RegionSeries) -> str:
+def _lost(rs: RegionSeries, loss: float, found: float) -> str:
+    if loss > 0.0 and found >= T_FLOOR:
+        return (
+            f"{rs.name}: a projected reading would fall below {T_FLOOR:g} mm (the region "
+            "would be lost)"
+        )
     return (
-        f"{rs.name}: a projected reading would fall below {T_FLOOR:g} mm (the region would be lost)"
+        f"{rs.name}: found at {found:.3g} mm, below {T_FLOOR:g} mm, at the latest survey "
+        "(the region is lost; held as found)"
     )
 
 

@@ -14,6 +14,13 @@ Two models of corrosion loss over time:
   the origin, A = sum(d tau^B) / sum(tau^2B), with SE(A) = sqrt(SSE / (n - 1) /
   sum(tau^2B)).
 
+A region read in the latest survey only has no rate of its own. It is not held as found
+(that would project no loss, which is optimistic): when the year corrosion began is known
+(the year built, or the engineer's ``--since``), its rate is the loss since then,
+r = (t_nominal - t) / (y - y0) (linear) or A = (t_nominal - t) / (y - y0)^B (power law),
+with no standard error; when it is not known the region has no rate ("no rate"), is held
+as found, and says so.
+
 Projections start from the thickness found at the latest survey and add the model's loss
 from then on (so the projection at the latest date is the survey itself). A fit that shows
 thickening (a negative loss rate, which is measurement scatter) projects no further loss,
@@ -37,6 +44,9 @@ Scenario = Literal["central", "fast", "slow"]
 #: corrosion-loss studies; the engineer's choice)
 B_DEFAULT = 0.5
 B_RANGE = (0.3, 0.8)
+#: methods that give no rate (no further loss is projected)
+NO_RATE = ("one survey", "no rate")
+SINCE_BUILT = "loss since built"
 
 
 @dataclass(frozen=True)
@@ -45,7 +55,9 @@ class Rate:
 
     Attributes:
         model: "linear" or "power". method: "least squares", "difference quotient"
-            (two surveys, linear) or "one survey" (no rate; no further loss projected).
+            (two surveys, linear), "loss since built" (one survey: the loss from nominal
+            over the years since corrosion began) or "no rate" (one survey and no year
+            built: no further loss projected, flagged).
         n: number of surveys in the fit. y_last: decimal year of the latest one.
         r: loss rate at the latest survey, mm/year (> 0 is thinning; as fitted).
         se: its standard error, mm/year (None without one).
@@ -73,11 +85,16 @@ class Rate:
             v = getattr(self, name)
             if v is not None and not math.isfinite(v):
                 raise TrendError(f"{name} = {v!r} is not finite")
-        power = self.model == "power" and self.method != "one survey"
+        power = self.model == "power" and self.method not in NO_RATE
         if power and (
             self.A is None or self.B is None or self.y0 is None or self.y0 >= self.y_last
         ):
             raise TrendError("a power law needs A, B and a start year before the survey")
+
+    @property
+    def has_rate(self) -> bool:
+        """False when the region has no rate (no further loss is projected for it)."""
+        return self.method not in NO_RATE
 
     @property
     def has_band(self) -> bool:
@@ -92,7 +109,7 @@ class Rate:
         """
         if years < 0 or not math.isfinite(years):
             raise TrendError(f"years ahead {years!r} must be a finite number >= 0")
-        if self.method == "one survey":
+        if not self.has_rate:
             return 0.0
         k = {"central": 0.0, "fast": 1.0, "slow": -1.0}[scenario]
         if self.model == "linear":
@@ -197,3 +214,57 @@ def _thickening(rate: Rate) -> Rate:
 
     msg = "the fit shows thickening (measurement scatter): no further loss is projected"
     return replace(rate, note=f"{rate.note}; {msg}" if rate.note else msg)
+
+
+def rate_since_built(
+    y: float,
+    t: float,
+    t_nominal: float,
+    *,
+    y0: float | None,
+    model: str = "linear",
+    B: float = B_DEFAULT,
+    where: str = "",
+) -> Rate:
+    """The rate of a region read in one survey only (see the module docstring).
+
+    Args:
+        y: decimal year of that survey. t: the thickness found there, mm.
+        t_nominal: as-built thickness, mm. y0: the year corrosion began (the year built;
+            None: not known, the region has no rate). model, B: as :func:`fit_power`.
+
+    Raises:
+        TrendError: a value that is not finite, or a bad model or exponent.
+    """
+    if not all(math.isfinite(v) for v in (y, t, t_nominal)):
+        raise TrendError(f"year {y!r} or thickness {t!r} mm is not finite", where=where)
+    if model not in MODELS:
+        raise TrendError(f"corrosion model {model!r} is not one of {MODELS}")
+    if y0 is None or not math.isfinite(y0) or y0 >= y:
+        why = (
+            "the year built is not known"
+            if y0 is None
+            else f"the year corrosion began ({y0!r}) is not before the survey ({y:.1f})"
+        )
+        return Rate(
+            model,
+            "no rate",
+            1,
+            y,
+            0.0,
+            B=B if model == "power" else None,
+            note=f"read in the latest survey only and {why}: no rate; held as found "
+            "(no further loss projected, which may be optimistic)",
+        )
+    d = max(t_nominal - t, 0.0)
+    tau = y - y0
+    note = (
+        f"rate from the loss since built: one survey, {d:.3g} mm lost from nominal over "
+        f"{tau:.1f} years since {y0:g}; no standard error"
+    )
+    if model == "linear":
+        return Rate("linear", SINCE_BUILT, 1, y, d / tau, note=note)
+    if not (math.isfinite(B) and 0.0 < B <= 1.5):
+        raise TrendError(f"power law exponent B = {B!r} must be in (0, 1.5]", where=where)
+    A = d / tau**B
+    return Rate("power", SINCE_BUILT, 1, y, A * B * tau ** (B - 1.0), None, A, None, B, y0, note)

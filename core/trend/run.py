@@ -15,8 +15,16 @@ from core.survey.model import Survey
 from core.trend.crossing import Crossing, Target, first_crossing, targets
 from core.trend.errors import TrendError
 from core.trend.match import TOLERANCE_MM, Key, RegionSeries, Series, match_surveys
-from core.trend.project import Step, step, values_of
-from core.trend.rates import B_DEFAULT, MODELS, Rate, Scenario, fit_linear, fit_power
+from core.trend.project import Step, projected_survey, step, values_of
+from core.trend.rates import (
+    B_DEFAULT,
+    MODELS,
+    Rate,
+    Scenario,
+    fit_linear,
+    fit_power,
+    rate_since_built,
+)
 
 HORIZON = 50.0  # years ahead, default (asfound's choice)
 STEP = 5.0  # years between engine runs, default (asfound's choice)
@@ -118,8 +126,16 @@ def _grid(horizon: float, step_years: float) -> tuple[float, ...]:
     return tuple(min(k * step_years, horizon) for k in range(n + 1))
 
 
-def fit(rs: RegionSeries, model: str, *, y0: float | None, B: float) -> Rate:
-    """The rate of one region under ``model`` (see :mod:`core.trend.rates`)."""
+def fit(
+    rs: RegionSeries, model: str, *, y0: float | None, B: float, built: float | None = None
+) -> Rate:
+    """The rate of one region under ``model`` (see :mod:`core.trend.rates`); a region read
+    in one survey only takes the rate of its loss since ``built`` (the year corrosion
+    began, None: unknown, no rate)."""
+    if len(rs.years) < 2:
+        return rate_since_built(
+            rs.years[-1], rs.t[-1], rs.t_nominal, y0=built, model=model, B=B, where=rs.name
+        )
     if model == "linear":
         return fit_linear(rs.years, rs.t, where=rs.name)
     if y0 is None:
@@ -146,7 +162,8 @@ def trend(
         options: the engineer's choices (None: the latest survey's own); the latest
             survey's family when none is named; the same for every survey.
         model: "linear" or "power". B: the power law's exponent.
-        since: the year corrosion began for the power law (None: the year built).
+        since: the year corrosion began, for the power law and for the rate of a region
+            read in the latest survey only (None: the year built).
         tolerance: station position tolerance, mm. horizon, step_years: years.
         surveys: the surveys already loaded from ``paths`` (None: loaded here).
 
@@ -177,7 +194,9 @@ def trend(
                 "has no year built; give --since YEAR",
                 where=names[-1],
             )
-    rates = tuple(fit(rs, model, y0=y0, B=B) for rs in series.regions)
+    built = float(since) if since is not None else latest.survey.year_built
+    rates = tuple(fit(rs, model, y0=y0, B=B, built=built) for rs in series.regions)
+    notes = list(series.notes) + _rate_notes(series.regions, rates)
     by_key = {
         (rs.member, rs.station, rs.key): r for rs, r in zip(series.regions, rates, strict=True)
     }
@@ -211,8 +230,26 @@ def trend(
         horizon,
         step_years,
         options,
-        series.notes,
+        tuple(notes),
     )
+
+
+def _rate_notes(regions: Sequence[RegionSeries], rates: Sequence[Rate]) -> list[str]:
+    """A note per region read in the latest survey only: its rate from the loss since
+    built, or that it has no rate (held as found, its station's projection optimistic)."""
+    out = []
+    for rs, rt in zip(regions, rates, strict=True):
+        if len(rs.years) >= 2:
+            continue
+        if rt.has_rate:
+            out.append(f"{rs.name}: read in the latest survey only; {rt.note}")
+        else:
+            out.append(
+                f"NO RATE: {rs.name}: {rt.note}; the projected results at station "
+                f"{rs.station!r} take no further loss there. Give the year built (or "
+                "--since YEAR) for a rate from the loss since built."
+            )
+    return out
 
 
 def _run(
@@ -227,7 +264,12 @@ def _run(
     out = [Step(0.0, at_zero)]
     for dt in dts[1:]:
         if all(r.loss(dt, scenario) <= 0.0 for r in rates.values()):
-            out.append(Step(dt, at_zero))  # no further loss anywhere: the survey as found
+            # no further loss anywhere: the survey as found (a region found lost still ends
+            # its station's own results)
+            _proj, lost = projected_survey(
+                latest, series.regions, rates, dt, scenario, options.thickness_policy
+            )
+            out.append(Step(dt, at_zero, "", lost))
             continue
         s = step(latest, series.regions, rates, options, dt, scenario)
         out.append(s)

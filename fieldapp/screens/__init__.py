@@ -13,6 +13,7 @@ from fieldapp.screens.rivets import RivetsScreen
 from fieldapp.screens.station import StationScreen
 from fieldapp.screens.surveys import SurveysScreen
 from fieldapp.sheets import ConfirmSheet
+from fieldapp.strip import SpanStrip
 from fieldapp.textsheet import TextSheet
 
 
@@ -35,6 +36,7 @@ __all__ = [
     "RivetsScreen",
     "Root",
     "SectionView",
+    "SpanStrip",
     "StationScreen",
     "StretchAxis",
     "SurveysScreen",
