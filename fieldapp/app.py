@@ -113,26 +113,79 @@ class FieldApp(App):
             self.session.close()
             self.session = None
 
-    def ask_inspector(self, first: bool = False) -> None:
-        """Ask the inspector's name and initials (kept on this device, asked once)."""
+    def ask_inspector(self, first: bool = False, other: bool = False, typed=None) -> None:
+        """Ask the inspector's name and initials (kept on this device, asked once).
+
+        ``other``: another person takes the device (:func:`identity.hand_over`); else the
+        name of the same person is corrected (:func:`identity.correct`). Either is asked
+        again as a question before it is kept; "Keep it" brings back what was typed."""
         now = identity.load()
 
         def done(name: str, initials: str) -> str:
             try:
-                who = identity.save(name, initials)
-            except (AsfoundError, OSError) as e:
+                new = identity.Inspector(name, initials)
+            except AsfoundError as e:
                 return str(e)
-            if self.session is not None:
-                self.session.who = who.who
-            self.tell(f"entries are now recorded as made by {who.who}", "ok")
+            if now is None:
+                return self._name_inspector(identity.save, name, initials)
+            if new.who == now.who and not other:
+                self.tell(f"entries are already recorded as made by {now.who}", "info")
+                return ""
+            if other:
+                text = (
+                    f"Hand this device to {new.who}? Entries from now on are theirs; what "
+                    f"{now.who} entered stays theirs, and {new.who}'s Undo never reaches it."
+                )
+            else:
+                text = (
+                    f"Record entries from now on as {new.who} instead of {now.who}? The same "
+                    "person: earlier entries keep the name they were made under, and Undo "
+                    "still reaches them on this device."
+                )
+            fn = identity.hand_over if other else identity.correct
+            self.confirm.ask(
+                text,
+                "Hand over" if other else "Change name",
+                lambda: self._name_inspector(fn, name, initials),
+                "Keep it",
+                lambda: self.ask_inspector(other=other, typed=(name, initials)),
+            )
             return ""
 
+        if typed is not None:
+            fields = typed
+        elif other or now is None:
+            fields = ("", "")
+        else:
+            fields = (now.name, now.initials)
+        if other:
+            title = "Another inspector takes this device: name and initials"
+        elif first:
+            title = "Who is inspecting? (asked once on this device; kept with every entry)"
+        else:
+            title = f"Correct the name of {now.who if now else 'the inspector'} (same person)"
         self.text_sheet.ask(
-            "Who is inspecting? (asked once on this device; kept with every entry)",
-            [("Name", now.name if now else ""), ("Initials", now.initials if now else "")],
+            title,
+            [("Name", fields[0]), ("Initials", fields[1])],
             done,
             can_close=not first,
         )
+
+    def _name_inspector(self, fn, name: str, initials: str) -> str:
+        try:
+            who = fn(name, initials)
+        except (AsfoundError, OSError) as e:
+            self.tell(str(e), "error")
+            if not self.text_sheet.is_open:  # after the question: what was typed comes back
+                self.ask_inspector(other=fn is identity.hand_over, typed=(name, initials))
+                self.text_sheet.message, self.text_sheet.level = str(e), "error"
+            return str(e)
+        if self.session is not None:
+            self.session.who, self.session.formerly = who.who, who.formerly
+        self.tell(f"entries are now recorded as made by {who.who}", "ok")
+        if self.root is not None and self.root.ids.sm.current == "history":
+            self.screen_of("history").refresh()
+        return ""
 
     def screen_of(self, name: str):
         return self.root.ids.sm.get_screen(name)

@@ -258,6 +258,10 @@ def apply(s: Session, row: Row, text: str) -> Saved:
         InputError: not a number, or core refuses the value (its message names it).
     """
     kind = row.key[0]
+    if row.key == ("member", "label"):  # one way to rename: the same checks as Rename
+        from fieldapp.members import rename_member
+
+        return rename_member(s, text)
     if kind == "header":
         return s.store.update_header(_header_change(s.header, row, text), s.who)
     m = _stored(s)
@@ -450,10 +454,13 @@ def material_words(s: Session) -> str:
     year = survey.survey.year_built
     if not assumed:
         return f"Fy {fy.value:.3g} {fy.symbol} as given (engineer's value)."
-    why = (
-        f"from year built {year}"
-        if year is not None and family == "aashto"
-        else "as no steel" + (" and no year built" if family == "aashto" else "") + " is given"
-    )
+    if family == "aashto" and year is not None:
+        why = f"from year built {year}"
+    elif family == "aashto":
+        why = "(the lowest default: neither the steel nor the year built is given; type either)"
+    else:
+        why = "as no steel is given" + (
+            f" (year built {year} is not used in this standard family)" if year else ""
+        )
     src = choices[0].source if choices else ""
     return f"Fy {fy.value:.3g} {fy.symbol} assumed {why} ({src})."

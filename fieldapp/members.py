@@ -57,7 +57,19 @@ def copy_member(s: Session, member_id: str = "") -> Saved:
 def rename_member(s: Session, label: str) -> Saved:
     """A new name shown for the current member (its id stays: the history and merges know
     the member by it)."""
-    return s.store.update_member(s.member_id, {"label": " ".join(label.split())}, s.who)
+    new = " ".join(label.split())
+    survey = s.store.to_survey()
+    for m in survey.members:
+        if m.id == s.member_id or not new:
+            continue
+        if new.casefold() in (m.id.casefold(), (m.label or "").casefold()):
+            raise InputError(
+                f"name {new!r} for member {s.member_id!r} is already member {m.id!r}'s "
+                f"{'id' if new.casefold() == m.id.casefold() else 'name'}: each member needs "
+                "a name of its own, so that nobody measures the wrong one",
+                where=f"member {s.member_id!r}",
+            )
+    return s.store.update_member(s.member_id, {"label": new}, s.who)
 
 
 def delete_member(s: Session) -> str:

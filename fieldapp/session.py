@@ -60,6 +60,7 @@ class Session:
         self.store = store
         self.book = book
         self.who = who or _user()
+        self.formerly = _formerly(self.who)  # this person's earlier names (Undo)
         place = book.place(store.path)
         self.member_id = ""
         self.station_id = ""
@@ -326,13 +327,13 @@ class Session:
 
     def undo_plan(self) -> tuple[UndoPlan, str]:
         """What Undo would revert (core's plan) and the sentence that says so."""
-        plan = self.store.undo_plan(self.who)
+        plan = self.store.undo_plan(self.who, formerly=self.formerly)
         return plan, describe.change(plan.rows, self.length_unit, self.position_unit)
 
     def undo(self, change: int | None = None) -> str:
         """Undo the last change of this person on this device (``change``: the one shown);
         a sentence saying what was undone. Raises UndoRefusedError with core's reason."""
-        rows = self.store.undo_last(self.who, change=change)
+        rows = self.store.undo_last(self.who, change=change, formerly=self.formerly)
         if not rows:
             return "nothing of yours to undo on this device"
         what = describe.change(rows, self.length_unit, self.position_unit)
@@ -356,3 +357,9 @@ def _user() -> str:
     """The inspector named on this device (:mod:`fieldapp.identity`), never the OS login."""
     who = identity.load()
     return who.who if who is not None else "inspector not named"
+
+
+def _formerly(who: str) -> tuple[str, ...]:
+    """The earlier names of the inspector named on this device, when ``who`` is them."""
+    now = identity.load()
+    return now.formerly if now is not None and now.who == who else ()

@@ -194,6 +194,7 @@ class AsBuiltForm:
     def member_buttons(self, s) -> None:
         box = self.ids.members
         box.clear_widgets()
+        self.acts: dict[str, object] = {}
         for mid in s.member_ids():
             b = Factory.Big(text=mid, chosen=mid == s.member_id)
             b.bind(on_press=partial(self._pick_member, mid))
@@ -207,7 +208,7 @@ class AsBuiltForm:
             b = Factory.SmallBig(text=text)
             b.bind(on_press=lambda _b, fn=fn: fn())
             box.add_widget(b)
-            self.rows[("member", text)] = b
+            self.acts[text] = b
 
     def _member_done(self, what: str, fn) -> str:
         app = App.get_running_app()
