@@ -150,7 +150,8 @@ class Session:
     def select(self, member: str | None = None, station: str | None = None) -> None:
         if member is not None and member != self.member_id:
             self.member_id = member
-            self.station_id = ""
+            ids = self.station_ids()  # another member: its first station along the span
+            self.station_id = ids[0] if ids else ""
         if station is not None:
             self.station_id = station
         self.remember()

@@ -44,7 +44,8 @@ class TextSheet(Overlay):
             self.inputs.append(f)
         self.show_over()
         w = min(Window.width - dp(32), dp(SHEET_MAX_DP))
-        h = dp(56 + 56 + 56 + 36) + len(self.inputs) * dp(ROW_DP)
+        n = len(self.inputs)  # each: a label and a field, 8 dp between any two widgets
+        h = dp(56 + 56 + 56 + 36) + n * dp(ROW_DP) + max(n - 1, 0) * dp(8)
         self.ids.box.size = (w, h)
         self.ids.box.pos = ((Window.width - w) / 2, Window.height - dp(TOP_DP) - h)
         if self.inputs:

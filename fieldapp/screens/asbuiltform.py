@@ -16,6 +16,11 @@ from core.errors import AsfoundError
 from fieldapp import asbuilt, members
 
 VALUE_DP = 170  # width of a value button
+STEEL_KEYS = (("header", "year_built"), ("header", "Fy"), ("header", "Fu"))
+STEEL_HINT = (
+    "Empty removes it. Without Fy the steel is assumed (AASHTO: from the year built); "
+    "the line under Steel says what."
+)
 
 
 class AsBuiltForm:
@@ -99,6 +104,8 @@ class AsBuiltForm:
             )
         else:
             hint = "Empty and Enter removes the value." if row.optional else ""
+            if row.key in STEEL_KEYS:
+                hint = STEEL_HINT
             app.ask_number(
                 f"{row.label} ({row.unit}) of member {s.member_id}" if row.unit else row.label,
                 row.text,
