@@ -390,7 +390,13 @@ def add_cover(s: Session, side: str, b: str, t: str) -> Saved:
     m = _stored(s)
     g = dict(m["section"]["girder"])
     covers = covers_of(g, side)
-    covers.append([parse_number(b, "cover plate width"), parse_number(t, "thickness")])
+    n = len(covers) + 1
+    covers.append(
+        [
+            parse_number(b, f"width of {side} cover plate {n}, member {s.member_id}"),
+            parse_number(t, f"thickness of {side} cover plate {n}, member {s.member_id}"),
+        ]
+    )
     g[f"covers_{side}"] = covers
     return s.store.update_member(s.member_id, {"section": {**m["section"], "girder": g}}, s.who)
 

@@ -39,13 +39,17 @@ def add_member(s: Session, member_id: str = "") -> Saved:
 
 
 def copy_member(s: Session, member_id: str = "") -> Saved:
-    """A copy of the current member's as-built values under a new id (no stations: those
-    are measured on the new member)."""
+    """A copy of the current member's as-built values under a new id. Nothing found on the
+    member is copied: no stations, stiffener readings or bands, rivet states or condition
+    (those are measured on the new member)."""
     mid = _check_id(s, member_id or next_member_id(s))
     data = s.member().model_dump(mode="json")
     data.pop("stations", None)
     for st in data.get("stiffeners") or []:
         st["readings"], st["bands"] = [], []
+    for run in data.get("rivets") or []:
+        run["states"] = []  # rivets found loose or missing are the other member's
+    data["condition"] = None  # a condition state is found on each member, never copied
     data["id"] = mid
     src = s.member_id
     data["label"] = f"copy of {data.get('label') or src}"
