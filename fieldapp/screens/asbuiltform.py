@@ -41,6 +41,11 @@ class AsBuiltForm:
         except AsfoundError as e:
             box.add_widget(Factory.Notice(text=str(e), level="error"))
             return
+        heads = [h for h, _r in groups]
+        stiff = [h for h in heads if h.startswith("Stiffener ")]
+        # a new stiffener is added under the last one (or under the section's values)
+        fallback = "Section, further values" if "Section, further values" in heads else "Member"
+        self._add_stiffener_under = stiff[-1] if stiff else fallback
         for head, rows in groups:
             box.add_widget(Factory.GroupHead(text=head))
             for row in rows:
@@ -73,7 +78,7 @@ class AsBuiltForm:
             acts.append(("Lay rivet runs along the span", self.relay))
         elif head.startswith("Stiffener "):
             acts.append((f"Remove {head.lower()}", partial(self.ask_remove_stiffener, head)))
-        elif head == "Bracing":
+        if head == self._add_stiffener_under:
             acts.append(("Add a stiffener at ...", self.ask_stiffener))
         row = Factory.BoxLayout(size_hint_y=None, height=dp(56), spacing=dp(6))
         for text, fn in acts:
