@@ -99,7 +99,15 @@ class AsBuiltForm:
     def ask_row(self, row, *_a) -> None:
         app = App.get_running_app()
         s = app.session
-        if row.kind == "choice":
+        if row.key == ("header", "standard"):  # the whole survey follows it: asked first
+            new = asbuilt.next_choice(row)
+            app.confirm.ask(
+                f"Assess the whole survey to {new} instead of {row.text}? Every check, "
+                "clause and default then follows that standard family.",
+                f"Change to {new}",
+                lambda: self._store_row(row, new),
+            )
+        elif row.kind == "choice":
             self._store_row(row, asbuilt.next_choice(row))
         elif row.kind == "text":
             app.text_sheet.ask(

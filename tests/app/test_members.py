@@ -133,6 +133,16 @@ def test_asbuilt_cover_plate_and_year_built_with_the_consequence(field):
     assert app.session.header.get("material") is None
     d.tap(panel.ids.close_btn)
     assert not app.sheet.is_open and app.session.header["year_built"] == 1898
+
+    # the standard family: one tap asks first (the whole survey follows it)
+    reveal_tap(d, member.rows[("header", "standard")])
+    assert "instead of aashto" in app.confirm.text
+    answer(d, yes=False)
+    assert app.session.header["standard"] == "aashto"
+    reveal_tap(d, member.rows[("header", "standard")])
+    answer(d, yes=True)
+    assert app.session.header["standard"] == "aisc"
+    assert "year built 1898 is not used" in words()
     d.shot("asbuilt-after-year", window=True)
 
 
