@@ -77,7 +77,7 @@ class AsBuiltForm:
         elif head == "Section, further values":
             acts.append(("Lay rivet runs along the span", self.relay))
         elif head.startswith("Stiffener "):
-            acts.append((f"Remove {head.lower()}", partial(self.ask_remove_stiffener, head)))
+            acts.append((f"Remove s{head[1:]}", partial(self.ask_remove_stiffener, head)))
         if head == self._add_stiffener_under:
             acts.append(("Add a stiffener at ...", self.ask_stiffener))
         row = Factory.BoxLayout(size_hint_y=None, height=dp(56), spacing=dp(6))

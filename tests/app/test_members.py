@@ -143,6 +143,15 @@ def test_asbuilt_cover_plate_and_year_built_with_the_consequence(field):
     answer(d, yes=True)
     assert app.session.header["standard"] == "aisc"
     assert "year built 1898 is not used" in words()
+
+    # a stiffener added on the pad; its Remove button names it as it is (ids keep their case)
+    n = len(app.session.member().stiffeners)
+    reveal_tap(d, member.rows[("action", "Add a stiffener at ...")])
+    pad_enter(d, "5")
+    sts = app.session.member().stiffeners
+    assert len(sts) == n + 1 and sts[-1].position == 5.0
+    removes = [k[1] for k in member.rows if k[0] == "action" and k[1].startswith("Remove st")]
+    assert removes == [f"Remove stiffener {x.id}" for x in sts]
     d.shot("asbuilt-after-year", window=True)
 
 
