@@ -9,9 +9,11 @@ import sys
 from rich.text import Text
 
 from core import CAUTION
-from core.assess import assess
 from core.assess.detailsout import girder_tables
 from core.assess.export import assessment_dict
+from core.bands import assess_with_bands
+from core.bands.cli import add_band_arguments, band_options, band_text
+from core.bands.export import bands_dict
 from core.choices import add_arguments, options_for
 from core.console import Voice, emit, level_style, make_console, table
 from core.glossary import OVERALL_LEVEL
@@ -29,6 +31,7 @@ def register(sub) -> None:
     p.add_argument("file", help="survey file (JSON, asfound.survey) or field store")
     p.add_argument("--json", action="store_true", help="machine-readable output")
     p.add_argument("--units", choices=("si", "us"), help="unit system of the output")
+    add_band_arguments(p)
     add_arguments(p)
     p.set_defaults(func=run)
 
@@ -74,10 +77,14 @@ def _flag_line(con, f, indent: str = "  ") -> None:
 
 def run(args) -> int:
     survey, problems = load_survey(args.file)
-    a = assess(survey, options_for(args, survey), tuple(problems))
+    a, bands = assess_with_bands(
+        survey, options_for(args, survey), tuple(problems), band_options(args)
+    )
     system = args.units or a.unit_system
     if args.json:
-        json.dump(assessment_dict(a, system), sys.stdout, indent=2, ensure_ascii=False)
+        out = assessment_dict(a, system)
+        out["bands"] = bands_dict(bands, system)
+        json.dump(out, sys.stdout, indent=2, ensure_ascii=False)
         sys.stdout.write("\n")
         return 0
     con, voice = make_console(), Voice.of(args)
@@ -144,6 +151,9 @@ def run(args) -> int:
                 f"{_NOT_APPLICABLE}: the limit state does not apply at that station as found; "
                 "the report and --json give the reason"
             )
+        for text in band_text(bands.member(m.member), system):
+            print()
+            print(text)
         if m.summary:
             print()
             print(

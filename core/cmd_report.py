@@ -26,6 +26,7 @@ from concurrent.futures.process import BrokenProcessPool
 from pathlib import Path
 
 from core import CAUTION
+from core.bands.cli import add_band_arguments
 from core.choices import add_arguments
 from core.console import Steps, Voice
 from core.errors import AsfoundError
@@ -62,6 +63,7 @@ def register(sub: argparse._SubParsersAction) -> None:
         help="folder input: surveys reported side by side in N processes (default: every "
         "core; 1: one after the other)",
     )
+    add_band_arguments(p)
     add_arguments(p)
     p.set_defaults(func=handler)
 

@@ -151,16 +151,21 @@ class PartThickness:
 
 @dataclass(frozen=True)
 class LossBand:
-    """A band of a plate thinned to ``t`` (mm) between ``lo`` and ``hi`` (mm).
+    """A band of a plate, or of one leg of an angle, thinned to ``t`` (mm) between ``lo``
+    and ``hi`` (mm).
 
     ``lo`` and ``hi`` are section coordinates along the plate's width: heights (y) for a
-    vertical plate such as a web, x for a horizontal plate. ``t = 0`` cuts the plate through.
+    vertical plate such as a web, x for a horizontal plate; on an angle (``leg`` "h" or
+    "v"), x along the horizontal leg and heights y along the vertical one, beyond the other
+    leg's thickness (knife-edge loss at the toes, pack rust along a leg). ``t = 0`` cuts the
+    plate or leg through.
     """
 
     part: str
     lo: float
     hi: float
     t: float
+    leg: AngleLeg | None = None
 
     def __post_init__(self) -> None:
         w = f"loss band on part {self.part!r}"
@@ -174,6 +179,8 @@ class LossBand:
                 f"upper edge hi = {self.hi:g} mm must be above lower edge lo = {self.lo:g} mm",
                 where=w,
             )
+        if self.leg not in (None, "h", "v"):
+            raise GeometryError(f"leg {self.leg!r} is not 'h', 'v' or absent", where=w)
 
 
 @dataclass(frozen=True)

@@ -319,8 +319,8 @@ def build_pieces(
 
     Raises:
         GeometryError: overlapping parts, unknown part ids, thickness above nominal, a loss
-            that removes a whole part, bands or perforations outside their plate, bands on
-            angles.
+            that removes a whole part, bands or perforations outside their plate or leg,
+            perforations on angles.
     """
     loss = loss if loss is not None else StationLoss()
     where = loss.where or defn.name
@@ -337,10 +337,17 @@ def build_pieces(
                     f"{kind} names unknown part {it.part!r}; known parts: {list(known)}",
                     where=where,
                 )
-            if kind != "remaining thickness" and not isinstance(known[it.part], Plate):
+            if kind == "perforation" and not isinstance(known[it.part], Plate):
                 raise GeometryError(
-                    f"a {kind} can be given on a plate only; {it.part!r} is an angle "
-                    "(give the angle leg's remaining thickness instead)",
+                    f"a perforation can be given on a plate only; {it.part!r} is an angle "
+                    "(a leg cut through is a loss band of t = 0 on that leg)",
+                    where=where,
+                )
+            if kind == "loss band" and isinstance(known[it.part], Plate) != (it.leg is None):
+                raise GeometryError(
+                    f"a loss band on plate {it.part!r} has no leg"
+                    if isinstance(known[it.part], Plate)
+                    else f"a loss band on angle {it.part!r} needs its leg ('h' or 'v')",
                     where=where,
                 )
     t_of: dict[tuple[str, str | None], float] = {}
@@ -394,11 +401,28 @@ def build_pieces(
             t_all = t_of.get((pid, None), p.t)
             t_h = t_of.get((pid, "h"), t_all)
             t_v = t_of.get((pid, "v"), t_all)
-            if t_h == p.t and t_v == p.t:
+            cuts = bands_of.get(pid, ())
+            if t_h == p.t and t_v == p.t and not cuts:
                 prs = plan.nominal[i]
-            else:
+            elif not cuts:
                 prs = p.leg_rects(t_h, t_v)
                 may_vanish = may_vanish or min(t_h, t_v) <= 2.0 * TOL
+            else:
+                for b in cuts:
+                    if b.t > p.t + TOL:
+                        raise GeometryError(
+                            f"loss band remaining thickness {b.t:g} mm is above the nominal "
+                            f"{p.t:g} mm (allowed: 0 up to {p.t:g} mm)",
+                            where=f"{where} / part {pid!r}",
+                        )
+                bands = [(b.leg, b.lo, b.hi, min(b.t, p.t)) for b in cuts]
+                prs = p.banded_rects(t_h, t_v, bands, f"{where} / part {pid!r}")
+                may_vanish = True  # a thin band or leg may leave a sliver (dropped below)
+                if not prs:
+                    raise GeometryError(
+                        "the loss removes the whole part (no material remains)",
+                        where=f"{where} / part {pid!r}",
+                    )
         rects.extend(prs)
         owner.extend([i] * len(prs))
     # one flat list converts to an array several times faster than a list of tuples

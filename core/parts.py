@@ -7,6 +7,7 @@ exposed faces and keeps the faying face (the face bolted or riveted against anot
 
 from __future__ import annotations
 
+import itertools
 import math
 from dataclasses import dataclass
 from typing import Literal
@@ -205,5 +206,62 @@ class Angle:
         vy0, vy1 = sorted((self.y + sy * t_h, self.y + sy * self.b_v))
         return (hx0, hy0, hx1, hy1), (vx0, vy0, vx1, vy1)
 
+    def leg_range(self, leg: str) -> tuple[float, float]:
+        """Where a loss band may lie on a leg, in section coordinates (mm): x along the
+        horizontal leg, heights y along the vertical one, from beyond the other leg's
+        nominal thickness (the corner, which both legs share, is not banded) to the toe."""
+        if leg == "h":
+            a, b = self.x + self.dir_x * self.t, self.x + self.dir_x * self.b_h
+        else:
+            a, b = self.y + self.dir_y * self.t, self.y + self.dir_y * self.b_v
+        return (min(a, b), max(a, b))
+
+    def banded_rects(self, t_h: float, t_v: float, bands, where: str = ""):
+        """The legs' rectangles with loss bands (``bands``: ``(leg, lo, hi, t)`` in mm,
+        ``lo``/``hi`` section coordinates within :meth:`leg_range` of the leg). The backs of
+        the legs keep their place (as for uniform thinning); a leg's thickness in a band is
+        the least of its own and the bands' there; a band of t = 0 cuts the leg through.
+
+        Raises:
+            GeometryError: a band outside its leg's range, or on an unknown leg.
+        """
+        cuts: dict[str, list[tuple[float, float, float]]] = {"h": [], "v": []}
+        for leg, lo, hi, t in bands:
+            if leg not in cuts:
+                raise GeometryError(
+                    f"a loss band on angle {self.id!r} needs its leg 'h' or 'v', not {leg!r}",
+                    where=where,
+                )
+            a, b = self.leg_range(leg)
+            if lo < a - 1e-6 or hi > b + 1e-6:
+                raise GeometryError(
+                    f"loss band {lo:g} to {hi:g} mm lies outside the {_LEG_WORDS[leg]} of "
+                    f"angle {self.id!r} ({a:g} to {b:g} mm, beyond the other leg's thickness)",
+                    where=where,
+                )
+            cuts[leg].append((max(lo, a), min(hi, b), t))
+        sx, sy = self.dir_x, self.dir_y
+        out = []
+        for leg, t_leg in (("h", t_h), ("v", t_v)):
+            if leg == "h":
+                a, b = sorted((self.x, self.x + sx * self.b_h))
+            else:
+                a, b = sorted((self.y + sy * t_h, self.y + sy * self.b_v))
+            edges = sorted({a, b, *(c for lo, hi, _ in cuts[leg] for c in (lo, hi) if a < c < b)})
+            for s0, s1 in itertools.pairwise(edges):
+                mid = 0.5 * (s0 + s1)
+                t = min([t_leg, *(tb for lo, hi, tb in cuts[leg] if lo <= mid <= hi)])
+                if t <= 0.0:
+                    continue
+                if leg == "h":
+                    y0, y1 = sorted((self.y, self.y + sy * t))
+                    out.append((s0, y0, s1, y1))
+                else:
+                    x0, x1 = sorted((self.x, self.x + sx * t))
+                    out.append((x0, s0, x1, s1))
+        return tuple(out)
+
 
 Part = Plate | Angle
+
+_LEG_WORDS = {"h": "horizontal leg", "v": "vertical leg"}

@@ -270,7 +270,7 @@ def loss_from_dict(loss: dict | None, length_unit: str = "mm", where: str = "") 
         hi = _coord(_need(e, "hi", w), length_unit, f"{w} / hi")
         t = _size(_need(e, "t", w), length_unit, f"{w} / t", allow_zero=True)
         with _at(w):
-            bands.append(LossBand(part, lo, hi, t))
+            bands.append(LossBand(part, lo, hi, t, e.get("leg")))
     perfs = []
     for i, e in enumerate(_items(loss.get("perforations"), limits.MAX_CUTS, "perforations", where)):
         w = f"{where} / perforations[{i}]"

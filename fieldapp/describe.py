@@ -39,10 +39,8 @@ def cut(kind: str, b: dict, unit: str, station: str = "") -> str:
     at = f" at {station}" if station else ""
     t = f" (t {num(b['t'])} {unit})" if kind == "band" and b.get("t") is not None else ""
     word, prep = ("loss band", "on") if kind == "band" else ("perforation", "in")
-    return (
-        f"{word} {b.get('id', '?')} {prep} {part_name(b.get('part', '?'))}, "
-        f"{num(b.get('lo'))} to {num(b.get('hi'))} {unit}{t}{at}"
-    )
+    on = place_name(b.get("part", "?"), b["leg"]) if b.get("leg") else part_name(b.get("part", "?"))
+    return f"{word} {b.get('id', '?')} {prep} {on}, {num(b.get('lo'))} to {num(b.get('hi'))} {unit}{t}{at}"
 
 
 def _rivet_change(old: list, new: list, pu: str) -> str:

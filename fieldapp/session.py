@@ -233,13 +233,16 @@ class Session:
             kind, self.member_id, self.station_id, ident, changes, self.who
         )
 
-    def add_band(self, part: str, lo: str, hi: str, t: str) -> Saved:
+    def add_band(self, part: str, lo: str, hi: str, t: str, leg: str | None = None) -> Saved:
+        """A loss band on a plate, or on one ``leg`` ("h" or "v") of an angle."""
         band = {
             "part": part,
             "lo": parse_number(lo, "band from"),
             "hi": parse_number(hi, "band to"),
             "t": parse_number(t, "band thickness") if t.strip() else None,
         }
+        if leg:
+            band["leg"] = leg
         return self.store.add_band(self.member_id, self.station_id, band, self.who)
 
     def add_perforation(self, part: str, lo: str, hi: str) -> Saved:

@@ -89,8 +89,15 @@ def assumptions(
     out += [
         Assumption(
             "thickness used for A, I, Q",
-            f"{opts.thickness_policy} of the readings per part region, capped at nominal",
+            f"{opts.thickness_policy} of the readings per part region, each reading capped at "
+            "nominal first (one above nominal never raises the value used)",
             ENGINEER + " (default: mean)",
+        ),
+        Assumption(
+            "part with no reading at a station",
+            "taken at its nominal thickness there, with no loss counted (not conservative "
+            "where it has corroded); flagged for review and listed under 'Not measured'",
+            "asfound's rule; engineer to confirm",
         ),
         Assumption(
             "thickness used for rivet bearing", "minimum of the readings per part region", PRACTICE

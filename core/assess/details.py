@@ -135,10 +135,21 @@ class MemberDetails:
         return next((s for s in self.stiffeners if s.id == ident), None)
 
 
-def _stat(vals: list[float], policy: str) -> float | None:
+def _stat(
+    vals: list[float], policy: str, nominal: float, what: str, warn: list[str]
+) -> float | None:
+    """The least or the mean of readings ``vals`` (mm), each capped at ``nominal`` first (a
+    reading above nominal never raises the mean: the conservative reading of a slip)."""
     if not vals:
         return None
-    return min(vals) if policy == "minimum" else statistics.fmean(vals)
+    over = [v for v in vals if v > nominal * (1.0 + 1e-9)]
+    if over:
+        warn.append(
+            f"{what}: {len(over)} reading(s) above the nominal {nominal:.4g} mm (largest "
+            f"{max(over):.4g} mm), each capped at nominal"
+        )
+    capped = [min(v, nominal) for v in vals]
+    return min(capped) if policy == "minimum" else statistics.fmean(capped)
 
 
 def _capped(t: float | None, nominal: float, what: str, warn: list[str]) -> float | None:
@@ -184,8 +195,8 @@ def stiffener_data(member: Member, rec: Stiffener, policy: str, height_all: floa
             to_internal(r.value, r.unit, "length", where=join(w, f"reading {r.id!r}"))
         )
     t_nom = eng.t
-    tp = _capped(_stat(groups.get(("projecting", None), []), policy), t_nom, "projecting t", warn)
-    tc = _capped(_stat(groups.get(("connected", None), []), policy), t_nom, "connected t", warn)
+    tp = _stat(groups.get(("projecting", None), []), policy, t_nom, "projecting t", warn)
+    tc = _stat(groups.get(("connected", None), []), policy, t_nom, "connected t", warn)
     if tc is not None and rec.kind == "plates":
         raise InputError("readings of connected legs apply to angle stiffeners only", where=w)
     words = []
@@ -203,11 +214,19 @@ def stiffener_data(member: Member, rec: Stiffener, policy: str, height_all: floa
         wb = join(w, f"band {b.id!r}")
         if not b.hi > b.lo:
             raise InputError(f"hi = {b.hi:g} {lu} must be above lo = {b.lo:g} {lu}", where=wb)
-        bt = b.t * f if b.t is not None else _stat(groups.get(("projecting", b.id), []), policy)
+        bt = (
+            b.t * f
+            if b.t is not None
+            else _stat(
+                groups.get(("projecting", b.id), []), policy, t_nom, f"band {b.id!r} t", warn
+            )
+        )
         bc = (
             b.t_conn * f
             if b.t_conn is not None
-            else _stat(groups.get(("connected", b.id), []), policy)
+            else _stat(
+                groups.get(("connected", b.id), []), policy, t_nom, f"band {b.id!r} t_conn", warn
+            )
         )
         bt = _capped(bt, t_nom, f"band {b.id!r} t", warn)
         bc = _capped(bc, t_nom, f"band {b.id!r} t_conn", warn)

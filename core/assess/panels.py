@@ -62,11 +62,10 @@ class PanelLayout:
 
 
 def _mean_tw(readings, a: float, b: float, t_nom: float, policy: str) -> float:
-    vals = [v for xs, vs in readings.values() if a - 1e-6 <= xs <= b + 1e-6 for v in vs]
+    vals = [min(v, t_nom) for xs, vs in readings.values() if a - 1e-6 <= xs <= b + 1e-6 for v in vs]
     if not vals:
         return t_nom
-    stat = min(vals) if policy == "minimum" else statistics.fmean(vals)
-    return min(stat, t_nom)
+    return min(vals) if policy == "minimum" else statistics.fmean(vals)  # each capped
 
 
 def layout(

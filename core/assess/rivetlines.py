@@ -81,12 +81,18 @@ def edge_distance(part: Part, line: RivetLine) -> float | None:
     return e if e > 0.0 else None
 
 
+#: the bearing thickness of a ply cut through at the rivet line (a band of t = 0): nothing, in
+#: effect (a ply of zero thickness is not a ply the rivet checks accept)
+CUT_PLY = 1e-3
+
+
 def plies(
     defn: SectionDefinition, line: RivetLine, loss: StationLoss | None, Fu: float
 ) -> list[Ply]:
     """The plies of a rivet of ``line`` with their thickness at the station (mm).
 
-    Thickness: the station's remaining thickness of the part (or leg) if given, else nominal.
+    Thickness: the station's remaining thickness of the part (or leg) if given, else nominal;
+    the least of it and of any loss band across the line on that part (or leg).
     In double shear the middle ply (the web) bears the whole rivet force and each outer ply
     half of it; in single shear every ply bears all of it. Edge distance: see
     :func:`edge_distance`.
@@ -104,6 +110,11 @@ def plies(
             t = t_of.get((pid, leg), t_of.get((pid, None), part.t))
         else:
             t = t_of.get((pid, None), part.t)
+        # a loss band across the line (on this plate, or on the pierced leg) is the ply there
+        for b in loss.bands if loss is not None else ():
+            on = b.part == pid and b.leg == (leg if isinstance(part, Angle) else None)
+            if on and b.lo <= line.position <= b.hi:
+                t = min(t, max(b.t, CUT_PLY))
         share = 1.0
         if line.shear_planes == 2 and n == 3 and k != 1:
             share = 0.5

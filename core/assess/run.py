@@ -4,6 +4,7 @@ against as-found, the family's limit states and measure, and the member's rating
 from __future__ import annotations
 
 import datetime as _dt
+from collections.abc import Callable
 
 from core.assess.assumptions import assumptions
 from core.assess.details import MemberDetails, SupportData, member_details
@@ -12,6 +13,7 @@ from core.assess.gcpause import collector_paused
 from core.assess.inputs import web_geometry
 from core.assess.options import AssessOptions
 from core.assess.panels import layout
+from core.assess.probe import StationRun
 from core.assess.results import (
     Assessment,
     EnvelopeRow,
@@ -30,6 +32,7 @@ from core.assess.station import (
     station_flags,
     web_readings,
 )
+from core.assess.tomeasure import unread_flag
 from core.checks.flags import Flag, Level, flag_rivet_line
 from core.errors import InputError
 
@@ -44,9 +47,15 @@ from core.survey.readings import station_loss, station_stats
 
 
 def assess_member(
-    member: Member, survey: Survey, material, family: Family, opts: AssessOptions
+    member: Member,
+    survey: Survey,
+    material,
+    family: Family,
+    opts: AssessOptions,
+    on_station: Callable[[StationRun], None] | None = None,
 ) -> MemberResult:
-    """Assess every station of one member.
+    """Assess every station of one member; ``on_station`` (when given) receives each
+    station's :class:`StationRun`, to evaluate it again with other thicknesses.
 
     Raises:
         InputError / GeometryError / UnitError: unusable member data (the message names
@@ -177,6 +186,22 @@ def assess_member(
             rated(ls, rate(ls, family.measure, effects, keys, by_key, mf, place))
             for ls in checks(ctx)
         ]
+        if on_station is not None:
+            on_station(
+                StationRun(
+                    member,
+                    st,
+                    ctx,
+                    tuple(states),
+                    tuple(stats_all[st.id]),
+                    policy,
+                    readings,
+                    t_nom,
+                    pf,
+                    tuple(same),
+                    _rerate(family, effects, keys, by_key, mf, place),
+                )
+            )
         loss_pct = part_loss_percent(built, found)
         flags = station_flags(ctx, states, loss_pct, opts)
         stations.append(
@@ -215,6 +240,9 @@ def assess_member(
                 opts.thresholds,
             )
     mflags += detail_flags(member, details, unattached)
+    unread = unread_flag(member)
+    if unread is not None:
+        mflags.append(unread)
     if cases and mf["g"].source == NOT_RECORDED:
         mflags.append(
             Flag(
@@ -240,6 +268,18 @@ def assess_member(
         details,
         panels,
     )
+
+
+def _rerate(family: Family, effects, keys, by_key, mf, place):
+    """The station's limit states, rated, for another context (same loads and factors)."""
+
+    def again(ctx: StationContext) -> list:
+        return [
+            rated(ls, rate(ls, family.measure, effects, keys, by_key, mf, place))
+            for ls in checks(ctx)
+        ]
+
+    return again
 
 
 def compression_of(effects) -> str:
@@ -358,8 +398,14 @@ def member_summary(
     return tuple(rows)
 
 
-def assess(survey: Survey, opts: AssessOptions | None = None, problems: tuple = ()) -> Assessment:
-    """Assess every member of ``survey`` under one standard family.
+def assess(
+    survey: Survey,
+    opts: AssessOptions | None = None,
+    problems: tuple = (),
+    on_station: Callable[[StationRun], None] | None = None,
+) -> Assessment:
+    """Assess every member of ``survey`` under one standard family (``on_station``: see
+    :func:`assess_member`).
 
     The family is ``opts.standard``, else the survey's; the survey's own options
     (``survey.options``) are the caller's to merge (see :mod:`core.assess.options`).
@@ -368,14 +414,14 @@ def assess(survey: Survey, opts: AssessOptions | None = None, problems: tuple = 
         InputError / GeometryError / UnitError: the first unusable value, with its place.
     """
     with collector_paused():
-        return _assess(survey, opts or AssessOptions(), problems)
+        return _assess(survey, opts or AssessOptions(), problems, on_station)
 
 
-def _assess(survey: Survey, opts: AssessOptions, problems: tuple) -> Assessment:
+def _assess(survey: Survey, opts: AssessOptions, problems: tuple, on_station=None) -> Assessment:
     key = opts.standard or survey.survey.standard
     family = build_family(key, opts, survey)
     material, mat_notes, assumed = family.rules.material(survey)
-    members = [assess_member(m, survey, material, family, opts) for m in survey.members]
+    members = [assess_member(m, survey, material, family, opts, on_station) for m in survey.members]
     flags = list(family.rules.flags(survey))
     if assumed and key != "aashto":
         flags.append(

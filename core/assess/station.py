@@ -55,11 +55,12 @@ def panel_thickness(
         )
     if not vals:
         return t_nominal, "nominal: no web reading in " + where
-    stat = min(vals) if policy == "minimum" else statistics.fmean(vals)
-    t = min(stat, t_nominal)
+    over = sum(1 for v in vals if v > t_nominal)
+    vals = [min(v, t_nominal) for v in vals]  # each reading capped: none raises the mean
+    t = min(vals) if policy == "minimum" else statistics.fmean(vals)
     word = "least" if policy == "minimum" else "mean"
     return t, f"{word} of {len(vals)} web reading(s) in {where}" + (
-        ", capped at nominal" if stat > t_nominal else ""
+        f", {over} above nominal capped at nominal" if over else ""
     )
 
 

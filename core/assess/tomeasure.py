@@ -35,6 +35,7 @@ from collections.abc import Iterator
 from dataclasses import dataclass
 
 from core.assess.inputs import web_geometry
+from core.checks.flags import Flag, Level
 from core.errors import AsfoundError, InputError
 from core.errors import where as join
 from core.families.liveload import NOT_RECORDED
@@ -397,3 +398,37 @@ def _steel(survey: Survey, family: str) -> str:
     except AsfoundError:
         return ""
     return "; ".join(f"{c.item}: {c.value} ({c.source})" for c in choices) if assumed else ""
+
+
+def unread_flag(m: Member) -> Flag | None:
+    """One flag for the member when a part (or an angle's leg) has no reading at one of its
+    stations, naming each with its stations: the as-found section keeps it at its nominal
+    thickness there, so the capacity may be too high where it has corroded. None when every
+    part of every station was read.
+
+    Raises:
+        AsfoundError: the member's section cannot be built (with its place).
+    """
+    defn = m.definition()
+    n = len(m.stations)
+    where: dict[str, list[str]] = {}
+    for st in sorted(m.stations, key=lambda s: _position(m, s)):
+        for i in _station(m, st, defn):
+            if i.kind in ("unread_part", "unread_station"):
+                subject = "every part" if i.kind == "unread_station" else i.subject
+                where.setdefault(subject, []).append(st.id)
+    if not where:
+        return None
+    said = [
+        f"{what} ({'every station' if len(sts) == n > 1 else ', '.join(sts)})"
+        for what, sts in where.items()
+    ]
+    return Flag(
+        Level.REVIEW,
+        f"{m.place()} / parts not read",
+        "engineer to review: no thickness reading on "
+        + "; ".join(said)
+        + ": taken at the nominal thickness there, with no loss counted, which is not "
+        "conservative where it has corroded (the report lists it under 'Not measured')",
+        float(sum(len(s) for s in where.values())),
+    )

@@ -11,8 +11,11 @@ from pathlib import Path
 
 from reportlab.platypus import PageBreak, Paragraph
 
-from core.assess import Assessment, AssessOptions, assess, options_from_dict
+from core.assess import Assessment, AssessOptions, options_from_dict
 from core.assess.tomeasure import left_to_measure
+from core.bands import SurveyBands, assess_with_bands
+from core.bands.assumptions import band_assumptions
+from core.bands.cli import band_options
 from core.checks.flags import Level
 from core.choices import options_for
 from core.errors import InputError
@@ -34,6 +37,7 @@ class Report:
     checksum: str
     figures: tuple[tuple[str, int, tuple[float, float, float, float]], ...]
     assessment: Assessment
+    bands: SurveyBands | None = None
 
 
 def story(
@@ -44,6 +48,7 @@ def story(
     system: str,
     width: float,
     info: PageInfo,
+    bands: SurveyBands | None = None,
 ) -> list:
     st = Styles()
     out = cover.cover(st, survey, a, src, system, width)
@@ -54,13 +59,15 @@ def story(
     left = left_to_measure(survey, a.family.key if a.family else None)
     for m in a.members:
         out.append(PageBreak())
+        mb = None if bands is None else bands.member(m.member)
         out += member.member_pages(
-            st, m, survey.member(m.member), problems, src.path, system, width, info, a.family
+            st, m, survey.member(m.member), problems, src.path, system, width, info, a.family, mb
         )
         items = left.of(m.member, whole=True)
         out += notmeasured.section(st, items, len(m.stations), system, width)
     out.append(PageBreak())
-    out += notes.assumptions(st, a, system, width)
+    extra = () if bands is None else tuple(band_assumptions(bands.options))
+    out += notes.assumptions(st, a, system, width, extra)
     out += notes.history(st, src, system, width)
     out.append(notes.review_block(st, width))
     return out
@@ -75,9 +82,11 @@ def render(
     system: str,
     *,
     force: bool = False,
+    bands: SurveyBands | None = None,
 ) -> Report:
     """Write the report of an assessment to ``out`` (atomically; ``force``: see
-    :func:`core.outputs.check_output`).
+    :func:`core.outputs.check_output`; ``bands``: the assessment's bands from the readings,
+    shown per member and in the assumptions).
 
     Raises:
         OutputError: ``out`` is the input, a store, a survey file or (without ``force``)
@@ -88,9 +97,9 @@ def render(
     info = PageInfo(a.survey_id, a.title, src.checksum, a.family.short if a.family else "")
     with atomic_output(out) as tmp:
         doc = document(str(tmp), size, info)
-        flow = story(survey, a, problems, src, system, size[0] - 2 * MARGIN, info)
+        flow = story(survey, a, problems, src, system, size[0] - 2 * MARGIN, info, bands)
         doc.build(flow, canvasmaker=canvas_maker(info))
-    return Report(out, info.pages, a.level, src.checksum, tuple(info.figures), a)
+    return Report(out, info.pages, a.level, src.checksum, tuple(info.figures), a, bands)
 
 
 def build_report(
@@ -136,6 +145,7 @@ def build_report(
         opts = options_from_dict(survey.survey.options or {}, "survey / options")
     if standard is not None:
         opts = replace(opts, standard=standard)
-    a = assess(survey, opts, tuple(problems))
+    bo = band_options(args) if args is not None else None
+    a, bands = assess_with_bands(survey, opts, tuple(problems), bo)
     system = units or survey.survey.unit_system
-    return render(survey, a, problems, src, out, system, force=force)
+    return render(survey, a, problems, src, out, system, force=force, bands=bands)

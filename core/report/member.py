@@ -6,8 +6,10 @@ from __future__ import annotations
 from reportlab.platypus import CondPageBreak, KeepTogether, Paragraph, Spacer, Table, TableStyle
 
 from core.assess.results import MemberResult, StationResult
+from core.bands.run import MemberBands
 from core.glossary import RIVET_STATES
 from core.report import findings, rating
+from core.report.bandpages import span_section
 from core.report.drawing import flange_windows, section_drawing
 from core.report.fmt import position, position_label, ratio, rf, system_name, with_unit
 from core.report.girderpages import fatigue_lives, girder_ends, stiffener_tables
@@ -180,8 +182,10 @@ def member_pages(
     width: float,
     info: PageInfo,
     family=None,
+    bands: MemberBands | None = None,
 ) -> list:
-    """Every flowable of one member's part of the report."""
+    """Every flowable of one member's part of the report (``bands``: the member's bands
+    from the readings, shown with the span plot on its first page)."""
     measure = family.measure if family is not None else None
     sym = measure.symbol if measure is not None else "RF"
     out = [
@@ -194,6 +198,7 @@ def member_pages(
             st.body,
         ),
     ]
+    out += span_section(st, m, bands, system, width, info, sym)
     gov = governing_stations(m)
     if gov:
         out.append(CondPageBreak(600))

@@ -44,7 +44,8 @@ def check_sources(a: Assessment) -> list[tuple[str, str]]:
     return list(seen)
 
 
-def assumptions(st: Styles, a: Assessment, system: str, width: float) -> list:
+def assumptions(st: Styles, a: Assessment, system: str, width: float, extra: tuple = ()) -> list:
+    """The assumptions page: every assumption of ``a`` and ``extra`` ones (the bands')."""
     out = [Paragraph("Assumptions and sources", st.h1)]
     out.append(
         Paragraph(
@@ -60,7 +61,7 @@ def assumptions(st: Styles, a: Assessment, system: str, width: float) -> list:
             st.body,
         )
     )
-    rows = [[x.item, prose(x.value, system), x.source] for x in a.assumptions]
+    rows = [[x.item, prose(x.value, system), x.source] for x in (*a.assumptions, *extra)]
     out.append(caption(st, "Assumptions", system))
     out.append(grid(st, ["item", "value", "source"], rows, [width * x for x in (0.25, 0.47, 0.28)]))
     out.append(Spacer(1, 8))

@@ -118,7 +118,7 @@ def check_details(m: Member, L: float | None, where: str = "") -> list[Problem]:
                     Problem(
                         "warning",
                         f"{r.value:g} {r.unit} is above the nominal thickness {s.t:g} {lu}: "
-                        "measurement or drawing error; the value used is capped at nominal",
+                        "measurement or drawing error; it counts as nominal in the value used",
                         wr,
                     )
                 )

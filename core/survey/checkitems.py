@@ -12,7 +12,7 @@ from core import limits
 from core.definition import SectionDefinition
 from core.errors import AsfoundError
 from core.errors import where as join
-from core.parts import Angle, Plate
+from core.parts import Angle
 from core.survey.model import Member, Reading, Station
 from core.survey.problems import Problem
 from core.survey.readings import plausibility
@@ -30,8 +30,9 @@ def _kind(value: float, unit: str, kind: str, w: str, probs: list[Problem]) -> f
 
 
 def check_cut(m, defn, kind: str, b, w: str, lu: str, good) -> list[Problem]:
-    """Problems of a band or perforation ``b`` on its plate (``lu``: the length unit;
-    ``good``: the (part, region) groups that have usable readings)."""
+    """Problems of a band or perforation ``b`` on its plate, or of a band on an angle's leg
+    (``lu``: the length unit; ``good``: the (part, region) groups that have usable
+    readings)."""
     probs: list[Problem] = []
     wb = join(w, f"{kind} {b.id!r}")
     try:
@@ -39,20 +40,44 @@ def check_cut(m, defn, kind: str, b, w: str, lu: str, good) -> list[Problem]:
     except AsfoundError:
         known = [p.id for p in defn.parts]
         return [Problem("error", f"unknown part id {b.part!r}; known parts: {known}", wb)]
-    if not isinstance(part, Plate):
-        return [Problem("error", f"part {b.part!r} is an angle; a {kind} must lie on a plate", wb)]
+    leg = getattr(b, "leg", None)
+    if isinstance(part, Angle):
+        if kind == "perforation":
+            return [
+                Problem(
+                    "error",
+                    f"part {b.part!r} is an angle; a perforation must lie on a plate (a leg "
+                    "cut through is a band of t = 0 on that leg)",
+                    wb,
+                )
+            ]
+        if leg not in ("h", "v"):
+            return [
+                Problem(
+                    "error",
+                    f"part {b.part!r} is an angle: a band on it names its leg, 'h' "
+                    "(horizontal) or 'v' (vertical)",
+                    wb,
+                )
+            ]
+    elif leg is not None:
+        return [Problem("error", f"leg {leg!r} given for plate {b.part!r}; legs are of angles", wb)]
     lo = _kind(b.lo, lu, "length", join(wb, "lo"), probs)
     hi = _kind(b.hi, lu, "length", join(wb, "hi"), probs)
     if lo is None or hi is None:
         return probs
-    a0, a1 = part.long_range
+    a0, a1 = part.leg_range(leg) if isinstance(part, Angle) else part.long_range
     f = to_internal(1.0, lu, "length")
     rng = f"{a0 / f:g} to {a1 / f:g} {lu}"
     if not hi > lo:
         probs.append(Problem("error", f"hi = {b.hi:g} {lu} must be above lo = {b.lo:g} {lu}", wb))
     elif lo < a0 - 1e-6 or hi > a1 + 1e-6:
         what = (
-            "perforation outside its plate" if kind == "perforation" else "band outside its plate"
+            "perforation outside its plate"
+            if kind == "perforation"
+            else "band outside its plate"
+            if leg is None
+            else "band outside its leg (beyond the other leg's thickness, to the toe)"
         )
         probs.append(
             Problem(

@@ -294,15 +294,18 @@ class Reading(_Model):
 
 
 class Band(_Model):
-    """A loss band on a plate from ``lo`` to ``hi`` (length unit, section coordinates along
-    the plate width: heights for a web). Its remaining thickness is ``t`` (length unit) or,
-    when ``t`` is absent, the readings whose region is this band's id."""
+    """A loss band on a plate, or on one ``leg`` ("h" or "v") of an angle, from ``lo`` to
+    ``hi`` (length unit, section coordinates: heights for a web or a vertical leg, x across
+    the member for a horizontal plate or leg). Its remaining thickness is ``t`` (length
+    unit) or, when ``t`` is absent, the readings whose region is this band's id."""
 
     id: str = Field(min_length=1)
     part: str = Field(min_length=1)
     lo: float
     hi: float
     t: float | None = None
+    # written only when given: a band on a plate reads as it did before angles had bands
+    leg: Literal["h", "v"] | None = Field(default=None, exclude_if=lambda v: v is None)
     note: str = ""
 
 

@@ -4,7 +4,8 @@ For each part region (a whole plate, one leg of an angle, or a loss band) the re
 count n, minimum, mean and the coefficient of variation COV = s / mean, where s is the
 **sample** standard deviation (divisor n - 1). The value used for A, I and Q is the mean by
 default (the engineer may choose the minimum: ``policy="minimum"``); the minimum is kept for
-local checks. Both are capped at the nominal thickness.
+local checks. Both are capped at the nominal thickness, the mean reading by reading (a
+reading above nominal counts as nominal, so it never raises the value used).
 
 Notes and warnings (objects, not exceptions):
     * COV above 10 % suggests a thickness profile rather than one value (practice borrowed
@@ -45,7 +46,9 @@ class RegionStats:
 
     ``cov`` uses the sample standard deviation (divisor n - 1) and is None when n < 2.
     ``t_used`` is the value for A, I, Q (mean or minimum by ``policy``, capped at nominal);
-    ``t_local`` the minimum for local checks (capped at nominal).
+    ``t_local`` the minimum for local checks (capped at nominal); ``t_mean_capped`` the mean
+    of the readings each capped at nominal first (the value used by the mean policy: a
+    reading above nominal never raises it), while ``t_mean`` is the mean as read.
     """
 
     part: str
@@ -60,6 +63,7 @@ class RegionStats:
     policy: str
     reading_ids: tuple[str, ...] = ()
     notes: tuple[Problem, ...] = ()
+    t_mean_capped: float = math.nan
 
     @property
     def loss_pct(self) -> float:
@@ -93,6 +97,9 @@ def region_stats(
     n = len(vals)
     t_min, t_mean = min(vals), fmean(vals)
     cov = stdev(vals) / t_mean if n >= 2 else None
+    # each reading capped at nominal before the mean used: one above nominal (a slip or
+    # the mill's tolerance) never raises the thickness used, the conservative reading
+    t_mean_capped = fmean([min(v, t_nominal) for v in vals])
     notes: list[Problem] = []
     if n < MIN_READINGS:
         notes.append(
@@ -113,7 +120,7 @@ def region_stats(
                 where,
             )
         )
-    chosen = t_mean if policy == "mean" else t_min
+    chosen = t_mean_capped if policy == "mean" else t_min
     return RegionStats(
         part,
         region,
@@ -127,6 +134,7 @@ def region_stats(
         policy,
         tuple(reading_ids),
         tuple(notes),
+        t_mean_capped,
     )
 
 
@@ -173,7 +181,7 @@ def plausibility(value: float, unit: str, t_nominal: float, where: str = "") -> 
             Problem(
                 "warning",
                 f"{value:g} {unit} is above the nominal thickness {nom:.4g} {unit}: "
-                "measurement or drawing error; the value used is capped at nominal",
+                "measurement or drawing error; it counts as nominal in the value used",
                 where,
             )
         )
@@ -229,7 +237,7 @@ def stats_as(stats: Sequence[RegionStats], policy: str) -> list[RegionStats]:
     out = []
     for s in stats:
         if s.policy != policy:
-            chosen = s.t_mean if policy == "mean" else s.t_min
+            chosen = s.t_mean_capped if policy == "mean" else s.t_min
             s = replace(s, t_used=min(chosen, s.t_nominal), policy=policy)
         out.append(s)
     return out
@@ -287,6 +295,7 @@ def station_loss(
                 to_internal(b.lo, lu, "length", where=w),
                 to_internal(b.hi, lu, "length", where=w),
                 min(t, nominal_of(defn, b.part, w)),
+                b.leg,
             )
         )
     perfs = [

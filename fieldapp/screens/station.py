@@ -130,15 +130,7 @@ class StationScreen(EntryMixin, EntriesMixin, Screen):
         part = defn.part(self.part)
         lu = s.length_unit
         if self.mode in ("band", "hole"):
-            lo, hi = getattr(part, "long_range", (None, None))
-            ids.stats.text = (
-                f"{part_name(self.part)} spans {from_internal(lo, 'length', lu):.4g} to "
-                f"{from_internal(hi, 'length', lu):.4g} {lu} "
-                + ("(heights above the back of the bottom angles)" if part.kind == "plate"
-                   and getattr(part, "orientation", "") == "vertical" else "(across the member)")
-                if lo is not None
-                else f"{part_name(self.part)} is an angle: bands and holes go on plates"
-            )  # fmt: skip
+            ids.stats.text = self._cut_range(part, lu)
             self.pad_title()
             return
         try:
@@ -166,6 +158,34 @@ class StationScreen(EntryMixin, EntriesMixin, Screen):
                 f"({MIN_READINGS} expected)"
             )
         self.pad_title()
+
+    def _cut_range(self, part, lu: str) -> str:
+        """Where a band (or a hole) may go on the chosen part, in the survey's length unit."""
+
+        def u(v: float) -> str:
+            return f"{from_internal(v, 'length', lu):.4g}"
+
+        if isinstance(part, Angle):
+            if self.mode == "hole":
+                return (
+                    f"{part_name(self.part)} is an angle: holes go on plates; a leg cut "
+                    "through is a band with t left 0"
+                )
+            if self.region not in ("h", "v"):
+                return f"{part_name(self.part)}: tap the leg the band lies on"
+            lo, hi = part.leg_range(self.region)
+            across = "heights" if self.region == "v" else "across the member"
+            return (
+                f"{place_name(self.part, self.region)}: a band lies from {u(lo)} to {u(hi)} "
+                f"{lu} ({across}, beyond the other leg's thickness to the toe)"
+            )
+        lo, hi = part.long_range
+        words = (
+            "(heights above the back of the bottom angles)"
+            if getattr(part, "orientation", "") == "vertical"
+            else "(across the member)"
+        )
+        return f"{part_name(self.part)} spans {u(lo)} to {u(hi)} {lu} {words}"
 
     def show_result(self, app, result) -> None:
         """Show core's result of this station (or say it is on its way)."""

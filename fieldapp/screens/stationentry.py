@@ -12,6 +12,7 @@ from kivy.metrics import dp
 from kivy.uix.boxlayout import BoxLayout
 
 from core.errors import AsfoundError
+from core.parts import Angle
 from fieldapp import describe
 from fieldapp.names import part_name, place_name
 from fieldapp.pad import ROW_DP
@@ -232,13 +233,25 @@ class EntryMixin:
                     kind, self.edit[1], f.get("lo", ""), f.get("hi", ""), f.get("t", "")
                 )
             elif kind == "band":
+                leg = None
+                if isinstance(app.session.definition().part(self.part), Angle):
+                    if self.region not in ("h", "v"):
+                        app.tell(
+                            f"a band on the {part_name(self.part)} lies on one leg: tap "
+                            "'horizontal leg' or 'vertical leg' above the pad, then add it "
+                            "(what you typed is kept)",
+                            "warn",
+                        )
+                        return
+                    leg = self.region
                 saved = app.session.add_band(
-                    self.part, f.get("lo", ""), f.get("hi", ""), f.get("t", "")
+                    self.part, f.get("lo", ""), f.get("hi", ""), f.get("t", ""), leg
                 )
             else:
                 saved = app.session.add_perforation(self.part, f.get("lo", ""), f.get("hi", ""))
         except AsfoundError as e:
             pad.say(str(e), "error")
+            app.tell(str(e), "error")  # the form covers the pad's message: say it above too
             return
         st = app.session.station()
         item = next(x for x in (*st.bands, *st.perforations) if x.id == saved.id)

@@ -203,3 +203,20 @@ def test_checklist_views() -> None:
     assert set(cl.counts()) <= set(KINDS)
     assert cl.of("G1", whole=True) == list(cl)
     assert all(i.station == "S1" for i in cl.of("G1", "S1"))
+
+
+def test_the_assessment_flags_unread_parts_for_review() -> None:
+    """The member's flag names every part not read with its stations, at the review level;
+    a member read everywhere has none (asfound's rule, stated on the assumptions page)."""
+    from core.assess import assess
+    from core.checks.flags import Level
+
+    a = assess(survey(sample_doc(DECK)))
+    got = [f for f in a.members[0].flags if f.subject.endswith("/ parts not read")]
+    assert len(got) == 1 and got[0].level == Level.REVIEW
+    for words in ("top-right flange angle (every station)", "top cover plate 2"):
+        assert words in got[0].message
+    full = assess(survey(_full(sample_doc(DECK))))
+    assert not [f for f in full.members[0].flags if f.subject.endswith("/ parts not read")]
+    rows = [x.item for x in full.assumptions]
+    assert "part with no reading at a station" in rows

@@ -10,7 +10,13 @@ from hypothesis import strategies as st
 
 from core.errors import InputError
 from core.survey.model import Survey
-from core.survey.readings import COV_LIMIT, plausibility, region_stats, station_stats
+from core.survey.readings import (
+    COV_LIMIT,
+    plausibility,
+    region_stats,
+    station_stats,
+    stats_as,
+)
 
 from .helpers import document, reading
 
@@ -43,10 +49,30 @@ def test_statistics_second_hand_calculation_uses_sample_std():
 def test_policy_minimum_and_cap_at_nominal():
     s = region_stats([9.5, 10.4, 10.2], 10.0, part="web", policy="minimum")
     assert s.t_used == 9.5
-    # the mean 10.033 is above nominal: the value used is capped at nominal
+    # two readings above nominal count as nominal in the value used, reading by reading:
+    # (9.5 + 10 + 10) / 3 = 9.8333 (by hand), not the mean as read 10.033 capped to 10
     m = region_stats([9.5, 10.4, 10.2], 10.0, part="web")
     assert m.t_mean == pytest.approx(30.1 / 3)
-    assert m.t_used == 10.0
+    assert m.t_used == pytest.approx(29.5 / 3, rel=1e-12)
+    assert stats_as([m], "minimum")[0].t_used == 9.5
+    assert stats_as(stats_as([m], "minimum"), "mean")[0].t_used == m.t_used
+
+
+@given(
+    vals=st.lists(st.floats(min_value=1.0, max_value=30.0), min_size=1, max_size=12),
+    nominal=st.floats(min_value=2.0, max_value=25.0),
+)
+def test_a_reading_above_nominal_never_raises_the_value_used(vals, nominal):
+    """Properties of the rule of core.survey.readings: the value used is at most the mean as
+    read and at most nominal; a reading above nominal counts exactly as one at nominal;
+    with no reading above nominal it is the plain mean."""
+    s = region_stats(vals, nominal, part="web")
+    assert s.t_used <= min(s.t_mean, nominal) * (1 + 1e-12)
+    above = region_stats([*vals, nominal * 1.5], nominal, part="web")
+    at = region_stats([*vals, nominal], nominal, part="web")
+    assert above.t_used == at.t_used  # a reading above nominal counts as nominal
+    if max(vals) <= nominal:
+        assert s.t_used == s.t_mean
 
 
 def test_too_few_readings_note_and_single_reading():

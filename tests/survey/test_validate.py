@@ -7,6 +7,7 @@ import json
 import pytest
 
 from core.survey.document import check_file
+from core.survey.model import Survey
 from core.survey.validate import check_document
 
 from .helpers import MISTAKES, SI_SAMPLE, US_SAMPLE, document, reading
@@ -111,18 +112,38 @@ def test_perforation_through_the_whole_plate_is_an_error():
     assert any("removes the whole part 'web'" in e for e in _msgs(probs))
 
 
-def test_band_on_an_angle_and_band_without_thickness_are_errors():
+def test_band_on_an_angle_needs_its_leg_and_band_without_thickness_are_errors():
     st = {
         "id": "S1",
         "position": 1.0,
         "bands": [
             {"id": "b1", "part": "angle_bl", "lo": 0, "hi": 50, "t": 5},
             {"id": "b2", "part": "web", "lo": 150, "hi": 230},
+            {"id": "b3", "part": "web", "lo": 150, "hi": 230, "t": 5, "leg": "v"},
         ],
+        "perforations": [{"id": "p1", "part": "angle_bl", "lo": 0, "hi": 50}],
     }
-    errs = _msgs(_check(document([st]))[1])
-    assert any("band 'b1'" in e and "must lie on a plate" in e for e in errs)
+    errs = _msgs(_check(dict(document([st]), version=2))[1])  # legs of bands: version 2
+    assert any("band 'b1'" in e and "names its leg, 'h' (horizontal) or 'v'" in e for e in errs)
     assert any("band 'b2'" in e and "neither a thickness t nor readings" in e for e in errs)
+    assert any("band 'b3'" in e and "legs are of angles" in e for e in errs)
+    assert any("perforation 'p1'" in e and "must lie on a plate" in e for e in errs)
+
+
+def test_band_on_an_angle_leg_must_lie_beyond_the_corner():
+    """A leg band lies between the other leg's thickness and the toe (section coordinates);
+    one at the toe of a bottom angle's vertical leg is accepted."""
+    doc = document([{"id": "S1", "position": 1.0}])
+    m = Survey.model_validate(doc).members[0]
+    a = m.definition().part("angle_bl")
+    lo, hi = a.leg_range("v")
+    f = 1.0 if m.length_unit == "mm" else 25.4
+    ok = {"id": "b1", "part": "angle_bl", "leg": "v", "lo": (hi - 40) / f, "hi": hi / f, "t": 3}
+    bad = dict(ok, id="b2", lo=(lo - 5) / f)
+    doc = dict(document([{"id": "S1", "position": 1.0, "bands": [ok, bad]}]), version=2)
+    errs = _msgs(_check(doc)[1])
+    assert not any("band 'b1'" in e for e in errs), errs
+    assert any("band 'b2'" in e and "band outside its leg" in e for e in errs)
 
 
 def test_region_errors():
