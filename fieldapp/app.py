@@ -22,17 +22,18 @@ from kivy.properties import BooleanProperty, NumericProperty, ObjectProperty, St
 from core import CAUTION
 from core.errors import AsfoundError
 from core.survey import export_survey
-from fieldapp import screens  # noqa: F401  (registers the screen classes for kv)
+from fieldapp import identity, screens  # noqa: F401  (screens: registers the classes for kv)
 from fieldapp.live import LiveResult, ResultsWorker
 from fieldapp.pad import PadSheet, pad_width
 from fieldapp.places import PlaceBook
 from fieldapp.session import Session
 from fieldapp.sheets import ConfirmSheet
+from fieldapp.textsheet import TextSheet
 
 KV_DIR = Path(__file__).resolve().parent / "kv"
-KV_FILES = ("theme.kv", "pad.kv", "sheets.kv", "surveys.kv", "member.kv", "station.kv",
-            "rivets.kv", "results.kv", "root.kv")  # fmt: skip
-SCREENS = ("surveys", "member", "station", "rivets", "results")
+KV_FILES = ("theme.kv", "pad.kv", "sheets.kv", "text.kv", "surveys.kv", "asbuilt.kv", "member.kv",
+            "station.kv", "rivets.kv", "results.kv", "history.kv", "root.kv")  # fmt: skip
+SCREENS = ("surveys", "member", "station", "rivets", "results", "history")
 ACK_WAIT = 0.25  # s: an entry's acknowledgement waits at most this long for its result
 KEY_ENTER, KEY_PAD_ENTER, KEY_ESCAPE, KEY_BACKSPACE = 13, 271, 27, 8
 
@@ -67,6 +68,7 @@ class FieldApp(App):
         self._ack_soon = Clock.create_trigger(self._flush_acks, ACK_WAIT)
         self.sheet: PadSheet | None = None
         self.confirm: ConfirmSheet | None = None
+        self.text_sheet: TextSheet | None = None
 
     # ------------------------------------------------------------------ start and stop
     def build(self):
@@ -79,7 +81,7 @@ class FieldApp(App):
         self.worker = ResultsWorker(self._post)
         Window.bind(on_key_down=self._on_key, size=self._resized)
         Window.clearcolor = (0.98, 0.98, 0.96, 1)
-        self.sheet, self.confirm = PadSheet(), ConfirmSheet()
+        self.sheet, self.confirm, self.text_sheet = PadSheet(), ConfirmSheet(), TextSheet()
         self._resized()
         return root
 
@@ -92,6 +94,8 @@ class FieldApp(App):
                 s.dismiss()
 
     def on_start(self) -> None:
+        if identity.load() is None:
+            self.ask_inspector(first=True)
         target = self.first_survey or self.book.last
         if target is not None:
             self.open_store(Path(target))
@@ -100,7 +104,7 @@ class FieldApp(App):
 
     def on_stop(self) -> None:
         Window.unbind(on_key_down=self._on_key, size=self._resized)
-        for s in (self.sheet, self.confirm):
+        for s in (self.sheet, self.confirm, self.text_sheet):
             if s is not None:
                 s.dismiss()
         if self.worker is not None:
@@ -108,6 +112,80 @@ class FieldApp(App):
         if self.session is not None:
             self.session.close()
             self.session = None
+
+    def ask_inspector(self, first: bool = False, other: bool = False, typed=None) -> None:
+        """Ask the inspector's name and initials (kept on this device, asked once).
+
+        ``other``: another person takes the device (:func:`identity.hand_over`); else the
+        name of the same person is corrected (:func:`identity.correct`). Either is asked
+        again as a question before it is kept; "Keep it" brings back what was typed."""
+        now = identity.load()
+
+        def done(name: str, initials: str) -> str:
+            try:
+                new = identity.Inspector(name, initials)
+            except AsfoundError as e:
+                return str(e)
+            if now is None:
+                return self._name_inspector(identity.save, name, initials)
+            if new.who == now.who and not other:
+                self.tell(f"entries are already recorded as made by {now.who}", "info")
+                return ""
+            if other:
+                text = (
+                    f"Hand this device to {new.who}? Entries from now on are theirs; what "
+                    f"{now.who} entered stays theirs, and {new.who}'s Undo never reaches it."
+                )
+            else:
+                text = (
+                    f"Record entries from now on as {new.who} instead of {now.who}? The same "
+                    "person: earlier entries keep the name they were made under, and Undo "
+                    "still reaches them on this device."
+                )
+            fn = identity.hand_over if other else identity.correct
+            self.confirm.ask(
+                text,
+                "Hand over" if other else "Change name",
+                lambda: self._name_inspector(fn, name, initials),
+                "Keep it",
+                lambda: self.ask_inspector(other=other, typed=(name, initials)),
+            )
+            return ""
+
+        if typed is not None:
+            fields = typed
+        elif other or now is None:
+            fields = ("", "")
+        else:
+            fields = (now.name, now.initials)
+        if other:
+            title = "Another inspector takes this device: name and initials"
+        elif first:
+            title = "Who is inspecting? (asked once on this device; kept with every entry)"
+        else:
+            title = f"Correct the name of {now.who if now else 'the inspector'} (same person)"
+        self.text_sheet.ask(
+            title,
+            [("Name", fields[0]), ("Initials", fields[1])],
+            done,
+            can_close=not first,
+        )
+
+    def _name_inspector(self, fn, name: str, initials: str) -> str:
+        try:
+            who = fn(name, initials)
+        except (AsfoundError, OSError) as e:
+            self.tell(str(e), "error")
+            if not self.text_sheet.is_open:  # after the question: what was typed comes back
+                self.ask_inspector(other=fn is identity.hand_over, typed=(name, initials))
+                self.text_sheet.message, self.text_sheet.level = str(e), "error"
+            return str(e)
+        if self.session is not None:
+            self.session.who, self.session.formerly = who.who, who.formerly
+        self.tell(f"entries are now recorded as made by {who.who}", "ok")
+        if self.root is not None and self.root.ids.sm.current == "history":
+            self.screen_of("history").refresh()
+        return ""
 
     def screen_of(self, name: str):
         return self.root.ids.sm.get_screen(name)
@@ -287,6 +365,10 @@ class FieldApp(App):
 
     # ------------------------------------------------------------------ keyboard
     def _on_key(self, _window, key, _scancode, codepoint, _modifiers) -> bool:
+        if self.text_sheet is not None and self.text_sheet.is_open:
+            if key == KEY_ESCAPE and self.text_sheet.can_close:
+                self.text_sheet.close()
+            return key == KEY_ESCAPE  # the text fields take the other keys
         if self.confirm is not None and self.confirm.is_open:
             if key == KEY_ESCAPE:
                 self.confirm.answer(False)

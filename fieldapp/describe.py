@@ -106,8 +106,24 @@ def row(h, length_unit: str, position_unit: str) -> str:
             return f"{_rivet_change(h.old, h.new, position_unit)} on {h.entity}"
         if h.field == "section":
             return f"the section of {h.entity}: {_girder_change(h.old, h.new, length_unit)}"
-        return f"the {h.field} of member {h.entity}"
-    return f"the {h.field} of the survey"
+        return f"the {h.field.replace('_', ' ')} of member {h.entity}{_was(h)}"
+    if h.field == "*":
+        return "the survey set up"
+    return f"the {h.field.replace('_', ' ')} of the survey{_was(h)}"
+
+
+def _was(h) -> str:
+    """`` (old -> new)`` for a value in words or numbers (a label, a year), else ""."""
+
+    def plain(v):
+        if v is None:
+            return "-"
+        if isinstance(v, dict) and set(v) == {"value", "unit"}:
+            return f"{num(v['value'])} {v['unit']}"
+        return num(v) if isinstance(v, (int, float, str)) else None
+
+    old, new = plain(h.old), plain(h.new)
+    return f" ({old} -> {new})" if old is not None and new is not None else ""
 
 
 def change(rows, length_unit: str, position_unit: str) -> str:

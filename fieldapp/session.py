@@ -7,7 +7,6 @@ input come back as :class:`core.errors.InputError` with core's message.
 
 from __future__ import annotations
 
-import getpass
 import math
 from dataclasses import dataclass
 from pathlib import Path
@@ -18,7 +17,7 @@ from core.survey import FieldStore, Member, Saved, Survey, UndoPlan, import_surv
 from core.survey.guard import Hold, as_read_text, hold_reasons
 from core.survey.model import RIVET_STATES
 from core.survey.readings import nominal_of
-from fieldapp import describe, templates
+from fieldapp import describe, identity, templates
 from fieldapp.places import Place, PlaceBook, new_store_path
 
 #: the next state when a rivet is tapped
@@ -61,6 +60,7 @@ class Session:
         self.store = store
         self.book = book
         self.who = who or _user()
+        self.formerly = _formerly(self.who)  # this person's earlier names (Undo)
         place = book.place(store.path)
         self.member_id = ""
         self.station_id = ""
@@ -84,9 +84,11 @@ class Session:
         return cls(FieldStore.open(path), book, who)
 
     @classmethod
-    def from_template(cls, folder: Path, book: PlaceBook, survey_id: str, system: str) -> Session:
+    def from_template(
+        cls, folder: Path, book: PlaceBook, survey_id: str, system: str, who: str = ""
+    ) -> Session:
         """A new store with one member from the girder template and one station at mid-span."""
-        who = _user()
+        who = who or _user()
         path = new_store_path(folder, survey_id)
         store = FieldStore.create(path, templates.header(survey_id, system, who), who=who)
         member = templates.girder_member("G1", system)
@@ -95,11 +97,11 @@ class Session:
         return cls(store, book, who)
 
     @classmethod
-    def from_sample(cls, folder: Path, book: PlaceBook, sample: Path) -> Session:
+    def from_sample(cls, folder: Path, book: PlaceBook, sample: Path, who: str = "") -> Session:
         """A new store holding a copy of a sample survey file (the file is checked first)."""
         path = new_store_path(folder, sample.stem)
-        import_survey(sample, path, who=_user())
-        return cls.open(path, book)
+        import_survey(sample, path, who=who or _user())
+        return cls.open(path, book, who)
 
     def close(self) -> None:
         self.store.close()
@@ -148,7 +150,8 @@ class Session:
     def select(self, member: str | None = None, station: str | None = None) -> None:
         if member is not None and member != self.member_id:
             self.member_id = member
-            self.station_id = ""
+            ids = self.station_ids()  # another member: its first station along the span
+            self.station_id = ids[0] if ids else ""
         if station is not None:
             self.station_id = station
         self.remember()
@@ -328,13 +331,13 @@ class Session:
 
     def undo_plan(self) -> tuple[UndoPlan, str]:
         """What Undo would revert (core's plan) and the sentence that says so."""
-        plan = self.store.undo_plan(self.who)
+        plan = self.store.undo_plan(self.who, formerly=self.formerly)
         return plan, describe.change(plan.rows, self.length_unit, self.position_unit)
 
     def undo(self, change: int | None = None) -> str:
         """Undo the last change of this person on this device (``change``: the one shown);
         a sentence saying what was undone. Raises UndoRefusedError with core's reason."""
-        rows = self.store.undo_last(self.who, change=change)
+        rows = self.store.undo_last(self.who, change=change, formerly=self.formerly)
         if not rows:
             return "nothing of yours to undo on this device"
         what = describe.change(rows, self.length_unit, self.position_unit)
@@ -355,7 +358,12 @@ class Session:
 
 
 def _user() -> str:
-    try:
-        return getpass.getuser()
-    except (KeyError, OSError):
-        return "field"
+    """The inspector named on this device (:mod:`fieldapp.identity`), never the OS login."""
+    who = identity.load()
+    return who.who if who is not None else "inspector not named"
+
+
+def _formerly(who: str) -> tuple[str, ...]:
+    """The earlier names of the inspector named on this device, when ``who`` is them."""
+    now = identity.load()
+    return now.formerly if now is not None and now.who == who else ()

@@ -26,7 +26,7 @@ from core.survey.model import (
     SurveyHeader,
 )
 from core.survey.problems import Problem, raise_errors
-from core.survey.validate import check_member, check_station
+from core.survey.validate import check_member, check_station, check_survey
 
 if TYPE_CHECKING:
     from core.survey.store import Saved
@@ -134,12 +134,22 @@ class StoreOps:
 
     # ------------------------------------------------------------- survey and members
     def update_header(self, changes: dict, who: str) -> Saved:
-        """Change fields of the survey header (title, inspector, material, standard, ...)."""
+        """Change fields of the survey header (title, inspector, material, standard, ...).
+
+        The new header is checked as a file's would be (:func:`check_survey`: Fy, Fu and E
+        in range, the year built between 1800 and this year, the options), so a value the
+        assessment would refuse is never stored.
+
+        Raises:
+            InputError: a value out of range (the message names it, its range and place).
+        """
         with self._txn(who):
             hdr = {**self.header(), **changes}
             model = _validated(SurveyHeader, hdr, "survey header", "survey")
+            probs = check_survey(Survey(survey=model))
+            raise_errors(probs, "the survey header")
             self._update("survey", "", "", model.id, model.model_dump(mode="json"))
-            return self._saved(model.id, [])
+            return self._saved(model.id, probs)
 
     def add_member(self, member: dict, who: str) -> Saved:
         """Add a member (document object; its ``stations``, if any, are added too).
@@ -269,6 +279,11 @@ class StoreOps:
         """Replace the notes of a station (the old text stays in the history)."""
         return self.update_station(member_id, station_id, {"notes": str(text)}, who)
 
+    def delete_member(self, member_id: str, who: str) -> None:
+        """Withdraw a member softly, with its stations (they stay in the store and the
+        history; undo brings them back)."""
+        self._delete("member", member_id, "", member_id, who)
+
     def delete_station(self, member_id: str, station_id: str, who: str) -> None:
         self._delete("station", member_id, "", station_id, who)
 
@@ -386,6 +401,11 @@ class StoreOps:
                     (kind, member, station),
                 )
             }
+
+    def used_member_ids(self) -> set[str]:
+        """Every member id ever used in the store, withdrawn ones included."""
+        with self._lock:
+            return {r[0] for r in self._conn.execute("SELECT id FROM entity WHERE kind = 'member'")}
 
     def _next_id(self, kind: str, member: str, station: str, prefix: str) -> str:
         used = self.used_ids(kind, member, station)

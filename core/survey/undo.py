@@ -4,7 +4,8 @@ Mixed into :class:`core.survey.store.FieldStore`. The rules:
 
 * :meth:`UndoOps.undo_last` reverts the newest change (add, update or delete) that ``who``
   made on this handle's device and that is not undone yet. A change made by anyone else,
-  or by the same person on another device, is never a candidate.
+  or by the same person on another device, is never a candidate. A person whose name was
+  corrected gives the earlier names (``formerly``): changes under them are still their own.
 * It is refused (:class:`UndoRefusedError`, nothing changed) when somebody else has changed,
   since, what the change touched: the same entry; for a member, anything of that member;
   for a station, anything at it; for a loss band, the readings at its station (they may be
@@ -78,24 +79,29 @@ def touches(mine: HistoryEntry, other: HistoryEntry) -> bool:
 class UndoOps:
     """Undo of the field store (see the module docstring)."""
 
-    def _last_own(self, who: str) -> int | None:
+    def _last_own(self, names: tuple[str, ...]) -> int | None:
+        marks = ", ".join("?" * len(names))
         return self._conn.execute(
-            "SELECT MAX(change) FROM history WHERE who = ? AND device = ? AND undone = 0"
-            " AND action IN (?, ?, ?)",
-            (who, self.device, *UNDOABLE),
+            f"SELECT MAX(change) FROM history WHERE who IN ({marks}) AND device = ?"
+            " AND undone = 0 AND action IN (?, ?, ?)",
+            (*names, self.device, *UNDOABLE),
         ).fetchone()[0]
 
-    def undo_plan(self, who: str, *, keep_last_member: bool = True) -> UndoPlan:
-        """What :meth:`undo_last` would revert for ``who`` on this device, or why not."""
+    def undo_plan(
+        self, who: str, *, keep_last_member: bool = True, formerly: tuple[str, ...] = ()
+    ) -> UndoPlan:
+        """What :meth:`undo_last` would revert for ``who`` on this device, or why not
+        (``formerly``: as in :meth:`undo_last`)."""
+        names = (who, *formerly)
         with self._lock:
             self._no_batch()
-            c = self._last_own(who)
+            c = self._last_own(names)
             if c is None:
                 return UndoPlan(None)
             rows = tuple(h for h in self.history(c) if h.change == c)
             try:
                 with self._txn(who):
-                    self._revert(c, rows, who, keep_last_member)
+                    self._revert(c, rows, names, keep_last_member)
                     raise _DryRunError
             except _DryRunError:
                 return UndoPlan(c, rows)
@@ -103,11 +109,18 @@ class UndoOps:
                 return UndoPlan(c, rows, str(e))
 
     def undo_last(
-        self, who: str, *, change: int | None = None, keep_last_member: bool = True
+        self,
+        who: str,
+        *,
+        change: int | None = None,
+        keep_last_member: bool = True,
+        formerly: tuple[str, ...] = (),
     ) -> list[HistoryEntry]:
         """Revert the last change of ``who`` on this device (see the module docstring) and
         return its history rows ([] when there is none). ``change``: the change the caller
-        showed the user; refused if that is no longer the last one.
+        showed the user; refused if that is no longer the last one. ``formerly``: the names
+        the same person entered under earlier on this device (a corrected name): their
+        changes are this person's own; the undo is recorded under ``who``.
 
         Raises:
             UndoRefusedError: another person changed it since, the survey would be left without
@@ -115,7 +128,8 @@ class UndoOps:
         """
         with self._lock:
             self._no_batch()
-            c = self._last_own(who)
+            names = (who, *formerly)
+            c = self._last_own(names)
             if c is None:
                 if change is not None:
                     raise UndoRefusedError(
@@ -130,18 +144,20 @@ class UndoOps:
                 )
             rows = tuple(h for h in self.history(c) if h.change == c)
             with self._txn(who):
-                self._revert(c, rows, who, keep_last_member)
+                self._revert(c, rows, names, keep_last_member)
             return list(rows)
 
     def _no_batch(self) -> None:
         if self._change is not None:
             raise StoreError("undo is not possible inside a batch of entries")
 
-    def _revert(self, c: int, rows, who: str, keep_last_member: bool) -> None:
+    def _revert(self, c: int, rows, names: tuple[str, ...], keep_last_member: bool) -> None:
         later = [
             h
             for h in self.history(c + 1)
-            if h.action in UNDOABLE and not h.undone and (h.who, h.device) != (who, self.device)
+            if h.action in UNDOABLE
+            and not h.undone
+            and not (h.who in names and h.device == self.device)
         ]
         for mine in rows:
             hit = next((o for o in later if touches(mine, o)), None)

@@ -6,6 +6,7 @@ from fieldapp.drawing import SectionView
 from fieldapp.pad import FitLabel, NumPad, PadPanel, PadSheet
 from fieldapp.rivetmap import Overview, RivetLegend, StretchAxis
 from fieldapp.screens.entries import EntryRow
+from fieldapp.screens.history import HistoryScreen
 from fieldapp.screens.member import MemberScreen
 from fieldapp.screens.results import ResultsScreen
 from fieldapp.screens.rivets import RivetsScreen
@@ -13,6 +14,7 @@ from fieldapp.screens.station import StationScreen
 from fieldapp.screens.surveys import SurveysScreen
 from fieldapp.sheets import ConfirmSheet
 from fieldapp.strip import SpanStrip
+from fieldapp.textsheet import TextSheet
 
 
 class Root(BoxLayout):
@@ -23,6 +25,7 @@ __all__ = [
     "ConfirmSheet",
     "EntryRow",
     "FitLabel",
+    "HistoryScreen",
     "MemberScreen",
     "NumPad",
     "Overview",
@@ -37,4 +40,5 @@ __all__ = [
     "StationScreen",
     "StretchAxis",
     "SurveysScreen",
+    "TextSheet",
 ]

@@ -17,11 +17,12 @@ from core.section import analyse
 from core.sectionfile import definition_from_dict
 from core.units import from_internal, show
 from fieldapp import present, templates
+from fieldapp.screens.asbuiltform import AsBuiltForm
 from fieldapp.session import parse_number
 from fieldapp.theme import TOUCH_DP
 
 
-class MemberScreen(Screen):
+class MemberScreen(AsBuiltForm, Screen):
     next_id = StringProperty("name (or S2)")
     position_unit = StringProperty("m")
     current = StringProperty("")
@@ -30,9 +31,12 @@ class MemberScreen(Screen):
         super().__init__(**kw)
         self.fields: dict = {}
         self._stored: dict = {}
+        self.rows: dict = {}
 
     def on_kv_post(self, _base) -> None:
         for key, label in templates.GIRDER_FIELDS:
+            if key.startswith("cover_"):
+                continue  # every cover plate is in the groups below (add, remove)
             row = BoxLayout(size_hint_y=None, height=dp(TOUCH_DP), spacing=dp(8))
             lab = Factory.Body(text=label)
             f = Factory.NumberField(size_hint_x=None, width=dp(150))
@@ -62,20 +66,14 @@ class MemberScreen(Screen):
         self.ids.message.text = (
             "Tap a value to type it on the pad; it is stored when you press Enter."
             if girder
-            else "This section is not from the girder template; edit it in the office."
+            else "This section is not from the girder template: its plates are edited in the "
+            "office (core keeps them as drawn); span, steel, stiffeners, bracing and loads "
+            "are edited here."
         )
-        self._members(s)
+        self.member_buttons(s)
+        self.build_more(s)
         self._stations(s)
         self.preview()
-
-    def _members(self, s) -> None:
-        box = self.ids.members
-        box.clear_widgets()
-        ids = s.member_ids()
-        for mid in ids if len(ids) > 1 else []:
-            b = Factory.Big(text=mid, chosen=mid == s.member_id)
-            b.bind(on_press=partial(self._pick_member, mid))
-            box.add_widget(b)
 
     def _stations(self, s) -> None:
         box = self.ids.stations

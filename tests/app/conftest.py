@@ -120,8 +120,11 @@ def field(tmp_path):
     from kivy.base import EventLoop
     from kivy.core.window import Window
 
+    from fieldapp import identity
     from fieldapp.app import FieldApp
 
+    if identity.load() is None:  # asked once per device: this test device has its inspector
+        identity.save("Robin Testwell (invented)", "RT")
     EventLoop.ensure_window()
     Window.size = (1280, 800)
     apps = []

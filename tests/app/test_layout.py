@@ -1,7 +1,8 @@
 """Every screen at every tablet size: nothing cut, shortened, overlapping or off the window.
 
 Walks each screen (and the pad's states: a held value, the band and perforation forms, the pad
-over the Member screen, the undo question) at 800x1280 (portrait), 1024x768, 1280x800,
+over the Member screen, the undo question; the as-built form down its length, the member
+actions' sheet and question, History and the inspector's sheets and question) at 800x1280 (portrait), 1024x768, 1280x800,
 1366x768 and 1920x1080, writes a screenshot of each to tests/_artifacts/screens/ and fails
 on every problem found by tests/app/layout.py, and on any word of another vocabulary on
 screen (the glossary's forbidden words, issue 15).
@@ -38,6 +39,7 @@ def states(d, tmp_path):
     d.tap(member.fields["tw"][1])
     yield "member-pad"
     app.sheet.dismiss()
+    yield from asbuilt_states(d, member)
     d.tap(nav(d, "station"))
     d.until(lambda: app.result is not None and app.result.seq == app.seq, timeout=10)
     yield "station"
@@ -78,6 +80,7 @@ def states(d, tmp_path):
     d.tap(app.root.ids.undo)
     yield "undo-question"
     app.confirm.answer(False)
+    yield from history_states(d)
     d.tap(nav(d, "surveys"))
     yield "surveys"
     app.set_session(Session.from_sample(tmp_path, app.book, SAMPLES / "through-girder-us.json"))
@@ -88,6 +91,53 @@ def states(d, tmp_path):
     d.tap(nav(d, "results"))
     d.until(lambda: app.result is not None and app.result.seq == app.seq, timeout=10)
     yield "results-us"
+
+
+def asbuilt_states(d, member):
+    """The as-built form down its length, a value on the pad over it, the member actions
+    with their sheet and question, two members in the list."""
+    app = d.app
+    view = member.ids.form.parent
+    for i, y in enumerate((0.75, 0.5, 0.25, 0.0)):
+        view.scroll_y = y
+        d.pump(0.15)
+        yield f"asbuilt-{i + 1}"
+    row = member.rows[("header", "year_built")]
+    view.scroll_to(row, animate=False)
+    d.pump(0.1)
+    d.tap(row)
+    assert app.sheet.is_open
+    yield "asbuilt-year-pad"
+    app.sheet.dismiss()
+    view.scroll_y = 1
+    first = app.session.member_id
+    d.tap(member.acts["New member"])
+    yield "member-new-sheet"
+    d.tap(app.text_sheet.ids.save)
+    yield "members-two"
+    d.tap(member.acts["Withdraw"])
+    yield "member-withdraw-question"
+    app.confirm.answer(False)
+    member._pick_member(first)  # back to the sample's member (as its button does)
+
+
+def history_states(d):
+    """History, and the inspector's name sheet and question over it."""
+    app = d.app
+    d.tap(nav(d, "history"))
+    yield "history"
+    hist = d.screen("history")
+    d.tap(hist.ids.correct_name)
+    yield "inspector-sheet"
+    app.text_sheet.inputs[0].text = "Robin Testwell-Marsh (invented)"
+    d.tap(app.text_sheet.ids.save)
+    assert app.confirm.is_open
+    yield "inspector-question"
+    app.confirm.answer(False)  # Keep it: the sheet again, with what was typed
+    app.text_sheet.close()
+    d.tap(hist.ids.hand_over)
+    yield "inspector-hand-over-sheet"
+    app.text_sheet.close()
 
 
 @pytest.mark.parametrize("size", SIZES, ids=[f"{w}x{h}" for w, h in SIZES])

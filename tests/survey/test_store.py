@@ -168,3 +168,45 @@ def test_one_writer_thread_and_a_reader(store):
     t.join()
     assert errors == []
     assert len(store.to_survey().members[0].stations[0].readings) == 40
+
+
+@pytest.mark.parametrize(
+    "changes, text",
+    [
+        ({"year_built": 18}, r"year_built.*18.*1800"),
+        ({"year_built": 3025}, r"year_built.*3025"),
+        ({"material": {"Fy": {"value": -5, "unit": "MPa"}}}, r"Fy.*-5.*100"),
+        ({"material": {"Fy": {"value": 5000, "unit": "MPa"}}}, r"Fy.*5000.*1000"),
+        (
+            {
+                "material": {
+                    "Fy": {"value": 250, "unit": "MPa"},
+                    "Fu": {"value": 100, "unit": "MPa"},
+                }
+            },
+            r"Fu.*100",
+        ),
+    ],
+)
+def test_header_values_out_of_range_are_refused_and_nothing_changes(store, changes, text):
+    """The header is checked on entry as a file's would be (core.survey.validate ranges,
+    our own limits), so the store never holds a steel the assessment refuses."""
+    before = store.header()
+    with pytest.raises(InputError, match=text):
+        store.update_header(changes, "ann")
+    assert store.header() == before
+    store.update_header({"year_built": 1898}, "ann")
+    assert store.header()["year_built"] == 1898
+
+
+def test_delete_member_is_soft_its_id_stays_used_and_undo_brings_it_back(store):
+    store.add_member(member(id="G2"), "ann")
+    store.add_station("G2", {"id": "S1", "position": 0.25}, "ann")
+    store.delete_member("G2", "ann")
+    assert [m.id for m in store.to_survey().members] == ["G1"]
+    assert store.used_member_ids() == {"G1", "G2"}  # a withdrawn id is never given again
+    with pytest.raises(InputError):
+        store.add_member(member(id="G2"), "ann")
+    store.undo_last("ann")
+    back = store.to_survey().member("G2")
+    assert [s.id for s in back.stations] == ["S1"]

@@ -269,3 +269,37 @@ def test_a_store_refuses_a_bad_device_id(tmp_path):
     with pytest.raises(InputError, match="device id 'tablet A!'"):
         FieldStore.create(tmp_path / "x.asf", header(), device="tablet A!")
     assert not (tmp_path / "x.asf").exists()
+
+
+def test_formerly_reaches_own_earlier_names_never_another_person(tmp_path):
+    """A person whose name was corrected undoes their entries made under the earlier name
+    (``formerly``), on this device only; another person's entries stay out of reach even
+    when they are the newest."""
+    with FieldStore.create(tmp_path / "s.asf", header(), who="eve", device="tab-a") as s:
+        s.add_member(member(), "eve")
+        s.add_station("G1", {"id": "S1", "position": 0.5}, "eve")
+        mine = s.add_reading("G1", "S1", {**WEB, "value": 8.0}, "Ann Smyth (AS)")
+        s.add_reading("G1", "S1", {**WEB, "value": 7.0}, "Bo Lund (BL)")  # another person
+        # under the corrected name nothing is found, with the earlier one it is hers
+        assert s.undo_plan("Ann Smith (AS)").change is None
+        plan = s.undo_plan("Ann Smith (AS)", formerly=("Ann Smyth (AS)",))
+        assert plan.possible and plan.rows[0].entity == mine.id
+        rows = s.undo_last("Ann Smith (AS)", formerly=("Ann Smyth (AS)",))
+        assert [r.entity for r in rows] == [mine.id]
+        left = s.to_survey().members[0].stations[0].readings
+        assert [r.value for r in left] == [7.0]  # Bo's reading untouched
+        assert s.history()[-1].who == "Ann Smith (AS)"  # the undo is under today's name
+        # nothing more of hers: Bo's entry is never offered to her
+        assert s.undo_last("Ann Smith (AS)", formerly=("Ann Smyth (AS)",)) == []
+        assert s.undo_plan("Bo Lund (BL)").possible
+
+
+def test_formerly_does_not_cross_devices(tmp_path):
+    path = tmp_path / "s.asf"
+    with FieldStore.create(path, header(), who="eve", device="tab-a") as a:
+        a.add_member(member(), "eve")
+        a.add_station("G1", {"id": "S1", "position": 0.5}, "eve")
+    with FieldStore.open(path, device="tab-b") as b:
+        b.add_reading("G1", "S1", {**WEB, "value": 8.0}, "Ann Smyth (AS)")
+    with FieldStore.open(path, device="tab-a") as a:
+        assert a.undo_plan("Ann Smith (AS)", formerly=("Ann Smyth (AS)",)).change is None
