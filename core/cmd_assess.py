@@ -15,6 +15,7 @@ from core.assess.export import assessment_dict
 from core.choices import add_arguments, options_for
 from core.console import Voice, emit, level_style, make_console, table
 from core.glossary import OVERALL_LEVEL
+from core.names import readable
 from core.survey import load_survey
 from core.units import display_unit, from_internal, symbol
 
@@ -30,6 +31,16 @@ def register(sub) -> None:
     p.add_argument("--units", choices=("si", "us"), help="unit system of the output")
     add_arguments(p)
     p.set_defaults(func=run)
+
+
+#: the mark in the "governs" column of a limit state that does not apply at a station
+_NOT_APPLICABLE = "n/a"
+
+
+def _not_applicable(ls) -> bool:
+    """A limit state with no as-found value because it does not apply at the station
+    (its note says why, e.g. the section falls into pieces)."""
+    return ls.C_found is None and ls.note.startswith("not applicable")
 
 
 def _conv(v: float | None, kind: str, unit: str) -> float | None:
@@ -51,7 +62,14 @@ def _factors(a) -> str:
 
 def _flag_line(con, f, indent: str = "  ") -> None:
     """One flag: its level once (in the level's colour on a terminal), subject, sentence."""
-    emit(con, Text.assemble(indent, (f.label, level_style(f.label)), f" · {f.subject}: {f.detail}"))
+    emit(
+        con,
+        Text.assemble(
+            indent,
+            (f.label, level_style(f.label)),
+            f" · {readable(f.subject)}: {readable(f.detail)}",
+        ),
+    )
 
 
 def run(args) -> int:
@@ -91,13 +109,15 @@ def run(args) -> int:
                     (
                         s.station,
                         from_internal(s.x, "position", P),
-                        ls.name,
+                        readable(ls.name),
                         _conv(ls.C_built, ls.kind, u),
                         _conv(ls.C_found, ls.kind, u),
                         ls.ratio,
                         ls.measure,
                         symbol(u),
-                        "<" if s.governing is ls else "",
+                        "<"
+                        if s.governing is ls
+                        else (_NOT_APPLICABLE if _not_applicable(ls) else ""),
                     )
                 )
             rows.append((s.station, None, OVERALL_LEVEL, None, None, None, None, "", s.level.label))
@@ -119,6 +139,11 @@ def run(args) -> int:
                 {8: "level"},
             )
         )
+        if any(_not_applicable(ls) for s in m.stations for ls in s.limit_states):
+            print(
+                f"{_NOT_APPLICABLE}: the limit state does not apply at that station as found; "
+                "the report and --json give the reason"
+            )
         if m.summary:
             print()
             print(

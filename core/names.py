@@ -83,7 +83,12 @@ def readable(text: str) -> str:
     text = _LINES.sub(lambda m: line_name(m.group(1)), text)
     text = _PARTS.sub(lambda m: part_name(m.group(1)), text)
     text = _LINE_IDS.sub(lambda m: line_name(m.group(1)), text)
+    text = _PAIR.sub(r"left and right lines through the \1 cover", text)
     return _IDS.sub(lambda m: part_name(m.group(1)), text)
+
+
+# the two lines of one cover plate, named together
+_PAIR = re.compile(r"left line through the (top|bottom) cover \+ right line through the \1 cover")
 
 
 def annotated(text: str) -> str:

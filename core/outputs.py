@@ -23,7 +23,9 @@ from __future__ import annotations
 
 import json
 import os
+import re
 import secrets
+import time
 from collections.abc import Iterator, Sequence
 from contextlib import contextmanager, suppress
 from dataclasses import dataclass
@@ -37,6 +39,8 @@ OutputKind = Literal["pdf", "survey", "store"]
 _SQLITE = b"SQLite format 3\x00"
 _WAL = (b"\x37\x7f\x06\x82", b"\x37\x7f\x06\x83")
 _COMPANIONS = ("-wal", "-shm", "-journal")
+#: a temporary of :func:`atomic_output` older than this was left by a killed writer
+STALE_TEMPORARY_S = 24 * 3600.0
 _PDF_AUTHOR = b"/Author (asfound "
 #: bytes of an existing file read to tell what it holds (a larger file counts as foreign)
 _SNIFF_BYTES = 64 * 1024 * 1024
@@ -265,6 +269,7 @@ def atomic_output(out: str | Path, *, replace: bool = True) -> Iterator[Path]:
     tmp = folder / f".{o.name}.{secrets.token_hex(6)}.tmp"
     try:
         folder.mkdir(parents=True, exist_ok=True)
+        sweep_stale_temporaries(o)
         yield tmp
         if not tmp.exists():
             raise OSError(f"{tmp}: the temporary output was not written")
@@ -285,6 +290,34 @@ def atomic_output(out: str | Path, *, replace: bool = True) -> Iterator[Path]:
         for extra in (tmp, *(tmp.with_name(tmp.name + s) for s in _COMPANIONS)):
             with suppress(OSError):
                 extra.unlink(missing_ok=True)
+
+
+def sweep_stale_temporaries(out: str | Path, older_than_s: float = STALE_TEMPORARY_S) -> int:
+    """Remove the temporaries that a killed writer of ``out`` left beside it.
+
+    Only names :func:`atomic_output` makes for this very output (``.<name>.<12 hex>.tmp``
+    and its SQLite companions) and only those last changed more than ``older_than_s``
+    ago, so a writer still at work is never touched. Returns how many were removed;
+    a file that cannot be looked at or removed is left alone.
+    """
+    o = Path(out)
+    pattern = re.compile(
+        rf"\.{re.escape(o.name)}\.[0-9a-f]{{12}}\.tmp(?:{'|'.join(map(re.escape, _COMPANIONS))})?"
+    )
+    removed = 0
+    try:
+        names = [e for e in os.scandir(o.parent) if pattern.fullmatch(e.name)]
+    except OSError:
+        return 0
+    now = time.time()
+    for entry in names:
+        with suppress(OSError):
+            if entry.is_file(follow_symlinks=False) and (
+                now - entry.stat(follow_symlinks=False).st_mtime > older_than_s
+            ):
+                os.unlink(entry.path)
+                removed += 1
+    return removed
 
 
 def _link_new(tmp: Path, o: Path) -> None:

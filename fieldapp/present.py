@@ -8,7 +8,9 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from core.assess import LimitState, StationResult
+from core.assess.tomeasure import for_station
 from core.checks.flags import Flag, Level
+from core.errors import AsfoundError
 from core.glossary import level as level_term
 from core.units import show
 from fieldapp.names import readable
@@ -137,3 +139,27 @@ def loss_text(sr: StationResult, part: str) -> str:
 def length(value_mm: float, system: str) -> str:
     s = show(value_mm, "length", system)
     return f"{s.value:.4g} {s.symbol}"
+
+
+def left_here(member, station, most: int = 3) -> str:
+    """What is left to measure at a station in one sentence (the first ``most`` items of
+    :func:`core.assess.tomeasure.for_station`; "" once nothing is left), e.g. "Left to
+    measure here: top cover plate 2 (not read), web (2 of 3 readings)."""
+    try:
+        items = for_station(member, station)
+    except AsfoundError:
+        return ""  # the station screen says what is wrong with the record elsewhere
+    if not items:
+        return "Every part here has its readings."
+    words = []
+    for i in items[:most]:
+        if i.kind == "unread_station":
+            words.append("no part read yet")
+        elif i.kind == "unread_part":
+            words.append(f"{i.subject} (not read)")
+        elif i.kind == "few_readings":
+            words.append(f"{i.subject} ({i.have} of {i.want} readings)")
+        else:
+            words.append(f"{i.subject} (thickness typed, not read)")
+    more = f", and {len(items) - most} more" if len(items) > most else ""
+    return "Left to measure here: " + ", ".join(words) + more + "."

@@ -128,10 +128,13 @@ class Session:
         return [m.id for m in self.store.to_survey().members]
 
     def station_ids(self) -> list[str]:
+        """The member's stations in position order along the span (Next and Prev follow it),
+        whatever the order in which they were made."""
         if not self.member_id:
             return []
         survey = self.store.to_survey()
-        return [s.id for s in survey.member(self.member_id).stations]
+        stations = survey.member(self.member_id).stations
+        return [s.id for s in sorted(stations, key=lambda s: (s.position, s.id))]
 
     def member(self) -> Member:
         return self.store.member(self.member_id)
@@ -272,6 +275,33 @@ class Session:
         saved = self.store.add_station(self.member_id, st, self.who)
         self.select(station=saved.id)
         return saved
+
+    def add_station_after(self, offset: str, station_id: str = "") -> Saved:
+        """A new station ``offset`` (position unit, typed) beyond the current one (before it
+        when negative), named ``station_id`` or the next free name."""
+        here = self.station()
+        dx = parse_number(offset, f"distance from station {here.id}")
+        if dx == 0.0:
+            raise InputError(
+                f"distance 0 {self.position_unit} from station {here.id!r}: a new station "
+                "needs a place of its own (any distance other than 0 along the member)"
+            )
+        return self.add_station(station_id, f"{here.position + dx:.10g}")
+
+    def move_station(self, position: str) -> Saved:
+        """Move the current station to ``position`` (position unit, typed); core refuses a
+        place outside the member, naming the limits."""
+        sid = self.station_id
+        x = parse_number(position, f"position of station {sid!r}")
+        return self.store.update_station(self.member_id, sid, {"position": x}, self.who)
+
+    def withdraw_station(self) -> str:
+        """Withdraw the current station with its readings, bands and perforations (soft: all
+        stay in the store and the history, and Undo brings them back); the id withdrawn."""
+        sid = self.station_id
+        self.store.delete_station(self.member_id, sid, self.who)
+        self.after_removal()
+        return sid
 
     def update_girder(self, values: dict[str, float | None]) -> Saved:
         """Store new main dimensions of the member's girder template."""

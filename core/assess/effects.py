@@ -9,7 +9,7 @@ the two senses where the dead shear is zero). Units N, N*mm.
 
 from __future__ import annotations
 
-from collections.abc import Mapping
+from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field
 
 from core.errors import InputError
@@ -25,7 +25,8 @@ class LiveCase:
     Attributes:
         key: stable id (``"hl93"``, ``"vehicle:Type 3"``, ``"lm71"``, ``"station"``).
         title: in words. role: ``"design"``, ``"legal"``, ``"permit"`` or ``"other"``.
-        model: an object with ``envelope(L, x)``, or None for the station loads.
+        model: an object with ``envelope(L, x)`` and ``envelopes(L, xs)``, or None for the
+            station loads.
         g: distribution factor applied. weight: gross weight (N) of a vehicle, for posting.
     """
 
@@ -148,11 +149,44 @@ def dead_loads(member: Member, span: float, x: float) -> tuple[float, float, flo
     return w_dc * M, w_dc * V, w_dw * M, w_dw * V
 
 
+#: live envelopes of the cases at many positions, found at once: x -> case key -> envelope
+#: (the distribution factor applied)
+LiveTable = Mapping[float, Mapping[str, LiveEnvelope]]
+
+
+def live_table(cases: list[LiveCase], span: float, xs: Sequence[float]) -> LiveTable:
+    """The live envelope of every moving case at every position of ``xs`` (mm), each model
+    moved over all of them in one pass (:meth:`envelopes`); the same values as one
+    position at a time. A position outside the span is left out (found alone, where its
+    error is raised in its turn)."""
+    xs = [x for x in dict.fromkeys(xs) if 0.0 <= x <= span]
+    out: dict[float, dict[str, LiveEnvelope]] = {x: {} for x in xs}
+    for c in cases:
+        if c.model is None:
+            continue
+        for x, env in zip(xs, c.model.envelopes(span, xs), strict=True):  # type: ignore[attr-defined]
+            out[x][c.key] = env.scaled(c.g)
+    return out
+
+
+def _live(c: LiveCase, span: float, x: float, table: LiveTable | None) -> LiveEnvelope:
+    row = table.get(x) if table is not None else None
+    if row is not None and c.key in row:
+        return row[c.key]
+    return c.model.envelope(span, x).scaled(c.g)  # type: ignore[attr-defined]
+
+
 def station_effects(
-    member: Member, station: Station, x: float, span: float, cases: list[LiveCase]
+    member: Member,
+    station: Station,
+    x: float,
+    span: float,
+    cases: list[LiveCase],
+    table: LiveTable | None = None,
 ) -> StationEffects | None:
     """Effects at ``station`` (x mm from the member's start): its own loads, else the
     member's dead loads and its live cases; None when there is nothing to rate with.
+    ``table``: the live envelopes already found at once (:func:`live_table`).
 
     Raises:
         InputError / UnitError: unusable loads, with their place.
@@ -160,18 +194,22 @@ def station_effects(
     own = station_loads(member, station)
     if own is not None:
         moving = {
-            c.key: c.model.envelope(span, x).scaled(c.g)  # type: ignore[attr-defined]
+            c.key: _live(c, span, x, table)
             for c in cases
             if c.model is not None and c.role != "design"
         }
         return StationEffects(
             x, own.M_DC, own.V_DC, own.M_DW, own.V_DW, {**own.live, **moving}, own.source
         )
-    return effects_at(member, x, span, cases)
+    return effects_at(member, x, span, cases, table)
 
 
 def effects_at(
-    member: Member, x: float, span: float, cases: list[LiveCase]
+    member: Member,
+    x: float,
+    span: float,
+    cases: list[LiveCase],
+    table: LiveTable | None = None,
 ) -> StationEffects | None:
     """Effects at ``x`` (mm) from the member's uniform dead loads and its live cases moved
     over the simple span (None when there are neither): the support reactions at the ends,
@@ -183,11 +221,7 @@ def effects_at(
     if member.simple_span is None and not cases:
         return None
     M_DC, V_DC, M_DW, V_DW = dead_loads(member, span, x)
-    live = {
-        c.key: c.model.envelope(span, x).scaled(c.g)  # type: ignore[attr-defined]
-        for c in cases
-        if c.model is not None
-    }
+    live = {c.key: _live(c, span, x, table) for c in cases if c.model is not None}
     return StationEffects(
         x, M_DC, V_DC, M_DW, V_DW, live, "simple span: uniform dead loads and influence lines"
     )

@@ -7,7 +7,8 @@ import datetime as _dt
 
 from core.assess.assumptions import assumptions
 from core.assess.details import MemberDetails, SupportData, member_details
-from core.assess.effects import LiveCase, effects_at, station_effects
+from core.assess.effects import LiveCase, effects_at, live_table, station_effects
+from core.assess.gcpause import collector_paused
 from core.assess.inputs import web_geometry
 from core.assess.options import AssessOptions
 from core.assess.panels import layout
@@ -31,7 +32,9 @@ from core.assess.station import (
 )
 from core.checks.flags import Flag, Level, flag_rivet_line
 from core.errors import InputError
-from core.families import build_family
+
+# the families load with the engine, not inside the first assessment
+from core.families import aashto, aisc, build_family, en1993  # noqa: F401
 from core.families.base import Family
 from core.families.context import MemberSetup, StationContext
 from core.families.liveload import NOT_RECORDED
@@ -109,20 +112,23 @@ def assess_member(
             moments[x] = design_effects(family, eff, design).get("M")
         return moments[x]
 
+    # every case moved over every station and support at once (the positions are checked)
+    table = live_table(cases, span, [*xs.values(), *(s.x for s in details.supports)])
     setup = MemberSetup(
         details,
         panels,
         moment,
-        {s.id: effects_at(member, s.x, span, cases) for s in details.supports},
+        {s.id: effects_at(member, s.x, span, cases, table) for s in details.supports},
         found_all,
         _age(survey),
+        xs=tuple(xs.values()),
     )
     at_station, unattached = attach_supports(details, xs, web.D_web)
     for st in member.stations:
         place = member.place(st.id)
         x = xs[st.id]
         found = found_all[st.id]
-        effects = station_effects(member, st, x, span, cases)
+        effects = station_effects(member, st, x, span, cases, table)
         all_effects[st.id] = effects
         keys = ["station"] if effects is not None and "station" in effects.live else []
         keys = keys or design
@@ -361,7 +367,11 @@ def assess(survey: Survey, opts: AssessOptions | None = None, problems: tuple = 
     Raises:
         InputError / GeometryError / UnitError: the first unusable value, with its place.
     """
-    opts = opts or AssessOptions()
+    with collector_paused():
+        return _assess(survey, opts or AssessOptions(), problems)
+
+
+def _assess(survey: Survey, opts: AssessOptions, problems: tuple) -> Assessment:
     key = opts.standard or survey.survey.standard
     family = build_family(key, opts, survey)
     material, mat_notes, assumed = family.rules.material(survey)

@@ -29,7 +29,7 @@ from core.checks.flexure import flange_yield
 from core.checks.riveted_flange import flange_elements
 from core.families.base import Choice, Factor
 from core.families.common import moment_state
-from core.families.context import StationContext, capped
+from core.families.context import StationContext, capped, model_moment
 from core.families.fatigue import fatigue_state
 from core.families.girder import (
     bottom_flange,
@@ -344,10 +344,7 @@ def fatigue_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
         "fatigue truck", "other", FATIGUE_P, FATIGUE_X, ctx.f("IM_fat"), unit="ft", scale=FT
     )
     g = ctx.member["g"].value / s.multiple_presence
-    key = ("fatigue truck", ctx.x)
-    if key not in ctx.cache:
-        ctx.cache[key] = truck.moment(ctx.span, ctx.x)
-    M = ctx.cache[key] * g
+    M = model_moment(ctx, "fatigue truck", truck) * g
     n = aashto_fatigue.cycles_per_truck(ctx.span, where=ctx.where)
 
     def life(label, df):

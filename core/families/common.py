@@ -53,11 +53,22 @@ def tension_flange(ctx: StationContext, check: HolesCheck, note: str) -> list[Li
     out = {}
     ids = ctx.tension_parts
     for label, st in (("built", ctx.built), ("found", ctx.found)):
-        Ag = flange_area(st, ids)
-        An = float(sum(st.net.part_area[i] for i in ids))
-        if Ag <= 0 or An >= Ag:
+        # the as-built one is the same at every station of the member (once per sense)
+        key = ("tension flange built", ids, ctx.compression) if label == "built" else None
+        if key is None or key not in ctx.cache:
+            Ag = flange_area(st, ids)
+            An = float(sum(st.net.part_area[i] for i in ids))
+            got = None
+            if Ag > 0 and An < Ag:
+                got = check(st, An, Ag, f"{ctx.where} / tension flange ({label})")
+            if key is None:
+                out[label] = got
+            else:
+                ctx.cache[key] = out[label] = got
+        else:
+            out[label] = ctx.cache[key]
+        if out[label] is None:
             return []
-        out[label] = check(st, An, Ag, f"{ctx.where} / tension flange ({label})")
     (b, Mb), (f, Mf) = out["built"], out["found"]
     return [
         moment_state("tension_flange_at_holes", "tension flange at holes", b, f, note, (Mb, Mf))
@@ -143,6 +154,10 @@ def local_shear(
     lo, hi = ctx.y_depth
     out = {}
     for label, st in (("built", ctx.built), ("found", ctx.found)):
+        key = ("local web shear built", clause)  # the same at every station of the member
+        if label == "built" and key in ctx.cache:
+            out[label] = ctx.cache[key]
+            continue
         per_V, y = (None, None)
         if st.shear_applicable:
             per_V, y = st.gross.profile.tau_max(1.0)
@@ -159,6 +174,8 @@ def local_shear(
             clause=clause,
             where=f"{ctx.where} / local web shear ({label})",
         )
+        if label == "built":
+            ctx.cache[key] = out[label]
     b, f = out["built"], out["found"]
     note = f"net web area over {ctx.depth_words}; " + "; ".join(f.notes)
     if not ctx.found.shear_applicable:
@@ -210,9 +227,12 @@ def rivet_groups(ctx: StationContext, check: RivetCheck) -> list[LimitState]:
             w = f"{ctx.where} / rivet line {line.id!r}"
             key = ("rivet as-built", line.id)
             if key not in ctx.cache:
-                ctx.cache[key] = check(ctx, line, plies(ctx.defn, line, None, Fu), w)
-            rb = ctx.cache[key]
-            rf = check(ctx, line, plies(ctx.defn, line, ctx.loss_local, Fu), w)
+                pb = plies(ctx.defn, line, None, Fu)
+                ctx.cache[key] = (check(ctx, line, pb, w), pb)
+            rb, pb = ctx.cache[key]
+            pf = plies(ctx.defn, line, ctx.loss_local, Fu)
+            # plies at their nominal thickness here: the as-built rivet (a pure function)
+            rf = rb if pf == pb else check(ctx, line, pf, w)
             share = line.n_lines / k
             C_b += share * rb.Rr / line.pitch
             gap, why = local_gap(

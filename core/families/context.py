@@ -43,6 +43,7 @@ class MemberSetup:
         age: years in service at the survey (None: year built not given).
         multiple_presence: the factor inside the lever rule's distribution (1.0 without):
             fatigue takes one vehicle without it.
+        xs: every station's position (mm), for what is found for all stations at once.
     """
 
     details: MemberDetails
@@ -52,6 +53,7 @@ class MemberSetup:
     found: Mapping[str, StationSection] = field(default_factory=dict)
     age: float | None = None
     multiple_presence: float = 1.0
+    xs: tuple[float, ...] = ()
 
 
 @dataclass(frozen=True)
@@ -146,6 +148,19 @@ class StationContext:
         if any(b.part == web for b in lo.bands) or any(p.part == web for p in lo.perforations):
             return True
         return any(t.part == web and t.t < self.tw_nominal - 1e-9 for t in lo.thickness)
+
+
+def model_moment(ctx: StationContext, name: str, model) -> float:
+    """``model.moment(span, x)`` at the station (N mm), found for every station of the
+    member at once (``model.moments``) the first time one asks; cached per run as
+    ``(name, x)`` in ``ctx.cache``."""
+    key = (name, ctx.x)
+    if key not in ctx.cache:
+        rest = ctx.setup.xs if ctx.setup is not None else ()
+        xs = [x for x in dict.fromkeys((ctx.x, *rest)) if (name, x) not in ctx.cache]
+        for x, m in zip(xs, model.moments(ctx.span, xs), strict=True):
+            ctx.cache[(name, x)] = m
+    return ctx.cache[key]
 
 
 def flange_area(st: StationSection, ids: tuple[str, ...]) -> float:

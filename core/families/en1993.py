@@ -247,7 +247,10 @@ def local_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
 
 def bending_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     """Mc,Rd with the cross-section class of each state (6.2.5; 1-5 4.4 in class 4)."""
-    b = bending(ctx, ctx.built, ctx.tw_nominal, "as-built", ctx.compression)
+    key = ("bending built", ctx.compression)  # the same at every station of the member
+    if key not in ctx.cache:
+        ctx.cache[key] = bending(ctx, ctx.built, ctx.tw_nominal, "as-built", ctx.compression)
+    b = ctx.cache[key]
     f = bending(ctx, ctx.found, ctx.tw_panel, "as-found", ctx.compression)
     cb, cf = int(b.value("class").value), int(f.value("class").value)
     note = (

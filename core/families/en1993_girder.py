@@ -26,7 +26,7 @@ from core.checks.en1993_uframe import compression_chord
 from core.errors import InputError
 from core.families.base import Choice, Factor
 from core.families.common import moment_state
-from core.families.context import StationContext
+from core.families.context import StationContext, model_moment
 from core.families.fatigue import fatigue_state
 from core.families.girder import (
     bottom_flange,
@@ -101,15 +101,15 @@ def ltb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     if bend is None or bend.built is None or bend.found is None:
         return []
     fy, E = ctx.material.Fy, ctx.material.E
-    res = {}
-    words = ""
-    for label, b in (("built", bend.built), ("found", bend.found)):
+    u_frames = br is not None and br.kind == "u_frames"
+    a, bb, bw = (0.0, 0.0, "") if u_frames else segment(ctx)
+
+    def resistance(label: str, Wy: float):
         cf = flange_of(ctx, label)
-        Wy = _W(b)
         w = f"{ctx.where} / lateral-torsional buckling ({label})"
-        if br is not None and br.kind == "u_frames":
-            col, chord, sid = chord_column(ctx, label)
-            res[label] = compression_chord(
+        if u_frames:
+            col, chord, _sid = chord_column(ctx, label)
+            return compression_chord(
                 A_chord=chord.A_rt,
                 I_chord=chord.Iy_rt,
                 fy=fy,
@@ -121,30 +121,43 @@ def ltb_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
                 column=col,
                 where=w,
             )
-            words = (
-                "U-frame compression chord on its frames (EN 1993-2 6.3.4.2), "
-                f"{chord_words(sid, 'found')} as found"
-            )
+        t = cf.thin
+        Mcr, vals = elastic_critical_moment(
+            Iz=t.Iy,
+            It=t.J,
+            Iw=t.Iw,
+            L=bb - a,
+            zj=t.beta_x / 2.0,
+            E=E,
+            G=E / (2.0 * (1.0 + NU)),
+            where=w,
+        )
+        return buckling_resistance(
+            Wy=Wy, fy=fy, Mcr=Mcr, gamma_M1=ctx.f("gamma_M1"), mcr_values=vals, where=w
+        )
+
+    res = {}
+    for label, b in (("built", bend.built), ("found", bend.found)):
+        Wy = _W(b)
+        if label == "built":
+            # the as-built chord is the member's: one result per sense, segment and modulus
+            key = ("ltb built", ctx.compression, u_frames, bb - a, Wy)
+            if key not in ctx.cache:
+                ctx.cache[key] = resistance(label, Wy)
+            res[label] = ctx.cache[key]
         else:
-            a, bb, bw = segment(ctx)
-            t = cf.thin
-            Mcr, vals = elastic_critical_moment(
-                Iz=t.Iy,
-                It=t.J,
-                Iw=t.Iw,
-                L=bb - a,
-                zj=t.beta_x / 2.0,
-                E=E,
-                G=E / (2.0 * (1.0 + NU)),
-                where=w,
-            )
-            res[label] = buckling_resistance(
-                Wy=Wy, fy=fy, Mcr=Mcr, gamma_M1=ctx.f("gamma_M1"), mcr_values=vals, where=w
-            )
-            words = (
-                f"unbraced segment {a / 1000:.4g} to {bb / 1000:.4g} m ({bw}); Mcr with C1 = 1, "
-                "load at the shear centre; Wy of the class"
-            )
+            res[label] = resistance(label, Wy)
+    if u_frames:
+        _col, _chord, sid = chord_column(ctx, "found")
+        words = (
+            "U-frame compression chord on its frames (EN 1993-2 6.3.4.2), "
+            f"{chord_words(sid, 'found')} as found"
+        )
+    else:
+        words = (
+            f"unbraced segment {a / 1000:.4g} to {bb / 1000:.4g} m ({bw}); Mcr with C1 = 1, "
+            "load at the shear centre; Wy of the class"
+        )
     return [
         moment_state(
             "lateral_torsional_buckling",
@@ -281,10 +294,7 @@ def fatigue_states(ctx: StationContext, done: tuple = ()) -> list[LimitState]:
     if ctx.family.rules.model_key(ctx.opts) != "lm71":
         return []
     lam = ctx.f("lambda_fat")
-    key = ("fatigue lm71", ctx.x)
-    if key not in ctx.cache:
-        ctx.cache[key] = LM71(1.0, "careful").moment(ctx.span, ctx.x)
-    M = ctx.cache[key] * ctx.member["g"].value * lam
+    M = model_moment(ctx, "fatigue lm71", LM71(1.0, "careful")) * ctx.member["g"].value * lam
     gMf, gFf = ctx.f("gamma_Mf"), ctx.f("gamma_Ff")
 
     def life(label, ds):

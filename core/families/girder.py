@@ -58,8 +58,9 @@ def _flange(ctx: StationContext, section, where: str) -> CompressionFlange:
 
 
 def flange_of(ctx: StationContext, label: str) -> CompressionFlange:
-    """The compression flange of the station in state ``label`` (cached per station)."""
-    key = ("cf", ctx.station, label, ctx.compression)
+    """The compression flange of the station in state ``label`` (cached per station; the
+    as-built one, the same at every station of the member, once per member and sense)."""
+    key = ("cf", "" if label == "built" else ctx.station, label, ctx.compression)
     if key not in ctx.cache:
         w = f"{ctx.where} / compression flange ({label})"
         ctx.cache[key] = _flange(ctx, state_of(ctx, label), w)

@@ -181,9 +181,10 @@ def _symmetric(t: Train) -> bool:
     )
 
 
-def _antiderivative(effect: Effect, L: float, x: float, u: np.ndarray) -> np.ndarray:
+def _antiderivative(effect: Effect, L: float, x, u: np.ndarray) -> np.ndarray:
     """F(u) = integral from 0 to u of the ordinate (u clipped to [0, L]; the shear's part
-    right of the station, its favourable stretch for V+, taken just right of x)."""
+    right of the station, its favourable stretch for V+, taken just right of x). ``x`` is a
+    number or an array that broadcasts against ``u`` (one station per row)."""
     u = np.clip(u, 0.0, L)
     if effect == "M":
         left = (L - x) / L * u * u / 2.0
@@ -196,22 +197,33 @@ def _antiderivative(effect: Effect, L: float, x: float, u: np.ndarray) -> np.nda
     return np.where(u <= x, left, right)
 
 
+@dataclass(frozen=True)
+class _Rows:
+    """Many (station, train) pairs of one load set at once, one pair per row: stations
+    ``x`` (n, 1), axle offsets (n, k), and the favourable stretch (lo, hi, integral),
+    each (n, 1). Every row's train has the loads ``P`` and the uniform load of ``t``."""
+
+    x: np.ndarray
+    offsets: np.ndarray
+    lo: np.ndarray
+    hi: np.ndarray
+    whole: np.ndarray
+    t: Train
+
+
 def _values(
-    effect: Effect,
-    L: float,
-    x: float,
-    t: Train,
-    firsts: np.ndarray,
-    heading: int,
-    side: int,
-    fav: tuple[float, float, float],
+    effect: Effect, L: float, r: _Rows, firsts: np.ndarray, heading: int, side: int
 ) -> np.ndarray:
-    """:func:`_value` for many positions at once (numpy)."""
+    """The effect of each row's train standing at ``firsts`` (n, c), (n, c) values: the same
+    elementwise operations for every row as for one station alone, so each value is the
+    same to the last bit whatever else is in the batch."""
     tol = 1e-9 * L
+    t = r.t
     v = np.zeros_like(firsts)
-    # every axle at once (one row each): the same elementwise operations as axle by axle,
-    # then the rows added in axle order, so the sums are the same to the last bit
-    a = firsts[None, :] + heading * np.asarray(t.offsets)[:, None]
+    # every axle at once (axis 1): the same elementwise operations as axle by axle, then
+    # the axles added in their order, so the sums are the same to the last bit
+    x = r.x[:, :, None]
+    a = firsts[:, None, :] + heading * r.offsets[:, :, None]
     a = np.where(np.abs(a - x) <= tol, x, a)
     on = (a >= -tol) & (a <= L + tol)
     if effect == "M":
@@ -219,20 +231,102 @@ def _values(
     else:
         left = (a < x) | ((a == x) & (side < 0))
         eta = np.where(left, -a / L, (L - a) / L)
-    terms = np.asarray(t.P)[:, None] * np.where(on, eta, 0.0)
-    for row in terms:
-        v += row
+    terms = np.asarray(t.P)[None, :, None] * np.where(on, eta, 0.0)
+    for i in range(terms.shape[1]):
+        v += terms[:, i, :]
     if t.q_around > 0.0:
-        lo, hi, whole = fav
         a = firsts - heading * t.gap_before
-        b = firsts + heading * (t.length + t.gap_after)
+        b = firsts + heading * (r.offsets[:, -1:] + t.gap_after)
         a, b = np.minimum(a, b), np.maximum(a, b)
-        a, b = np.maximum(a, lo), np.minimum(b, hi)
+        a, b = np.maximum(a, r.lo), np.minimum(b, r.hi)
         inside = np.where(
-            b > a, _antiderivative(effect, L, x, b) - _antiderivative(effect, L, x, a), 0.0
+            b > a, _antiderivative(effect, L, r.x, b) - _antiderivative(effect, L, r.x, a), 0.0
         )
-        v += t.q_around * (whole - inside)
+        v += t.q_around * (r.whole - inside)
     return v
+
+
+def _check_stations(L: float, xs: Sequence[float]) -> None:
+    for x in xs:
+        if not L > 0.0 or not 0.0 <= x <= L:
+            raise InputError(f"station x = {x:g} mm is outside the span (0 to {L:g} mm)")
+
+
+def _rows(effect: Effect, L: float, xs: Sequence[float], offs: np.ndarray, t: Train) -> _Rows:
+    lo, hi, whole = [], [], []
+    for x in xs:
+        a, b = favourable_region(effect, L, x)
+        lo.append(a)
+        hi.append(b)
+        whole.append(_integral(effect, L, x, a, b) if t.q_around > 0.0 else 0.0)
+    col = lambda v: np.asarray(v, dtype=float).reshape(-1, 1)  # noqa: E731
+    return _Rows(col(xs), offs, col(lo), col(hi), col(whole), t)
+
+
+def _best(effect: Effect, L: float, r: _Rows, headings: tuple[int, ...]):
+    """Per row: (value, first, heading, found) of the envelope (see :func:`envelope`)."""
+    t = r.t
+    n = r.x.shape[0]
+    sign = -1.0 if effect == "V-" else 1.0
+    best = np.zeros(n)
+    first = np.zeros(n)
+    head = np.zeros(n, dtype=int)
+    found = np.zeros(n, dtype=bool)
+    sides = (1,) if effect == "M" else (1, -1)  # the moment has no jump at the station
+    marks = (np.zeros((n, 1)), r.x, np.full((n, 1), L))
+    for heading in headings:
+        shifts = [r.offsets]
+        if t.q_around > 0.0:
+            shifts.append(np.full((n, 1), -t.gap_before))
+            shifts.append(r.offsets[:, -1:] + t.gap_after)
+        shift = np.concatenate(shifts, axis=1)
+        # every breakpoint of every row, sorted (a repeated one changes no extreme: equal
+        # positions give equal values, and the first of equal values is kept)
+        cands = np.sort(np.concatenate([b - heading * shift for b in marks], axis=1), axis=1)
+        pieces = cands
+        if t.q_around > 0.0 and cands.shape[1] > 1:
+            # vertices of the quadratic pieces between consecutive breakpoints
+            a, b = cands[:, :-1], cands[:, 1:]
+            w = b - a
+            xs = [a + f * w for f in (0.25, 0.5, 0.75)]
+            y0, y1, y2 = (_values(effect, L, r, c, heading, 1) for c in xs)
+            curv = y0 - 2.0 * y1 + y2
+            ok = (w > 1e-9) & (np.abs(curv) > 1e-12 * (np.abs(y1) + 1.0))
+            c = xs[1] - 0.25 * w * (y2 - y0) / np.where(ok, 2.0 * curv, 1.0)
+            ok &= (c > a) & (c < b)
+            # a vertex that does not count stands on the row's first breakpoint (a repeat)
+            pieces = np.concatenate([cands, np.where(ok, c, cands[:, :1])], axis=1)
+        for side in sides:
+            vals = sign * _values(effect, L, r, pieces, heading, side)
+            k = np.argmax(vals, axis=1)
+            v = vals[np.arange(n), k]
+            up = v > sign * best + 1e-9 * (np.abs(best) + 1.0)
+            best = np.where(up, sign * v, best)
+            first = np.where(up, pieces[np.arange(n), k], first)
+            head = np.where(up, heading, head)
+            found |= up
+    return best, first, head, found
+
+
+def envelope_many(effect: Effect, L: float, xs: Sequence[float], t: Train) -> list[Extreme]:
+    """:func:`envelope` at every station of ``xs`` at once (numpy over the stations); each
+    value the same to the last bit as alone.
+
+    Raises:
+        InputError: L not positive or a station outside [0, L].
+    """
+    _check_stations(L, xs)
+    if not len(xs):
+        return []
+    offs = np.tile(np.asarray(t.offsets, dtype=float), (len(xs), 1))
+    r = _rows(effect, L, xs, offs, t)
+    best, first, head, found = _best(effect, L, r, (1,) if _symmetric(t) else (1, -1))
+    return [
+        Extreme(float(v), Placement(float(f), int(h)) if ok else None)
+        for v, f, h, ok in zip(
+            best.tolist(), first.tolist(), head.tolist(), found.tolist(), strict=True
+        )
+    ]
 
 
 def envelope(effect: Effect, L: float, x: float, t: Train) -> Extreme:
@@ -243,36 +337,75 @@ def envelope(effect: Effect, L: float, x: float, t: Train) -> Extreme:
     Raises:
         InputError: L not positive or x outside [0, L].
     """
-    if not L > 0.0 or not 0.0 <= x <= L:
-        raise InputError(f"station x = {x:g} mm is outside the span (0 to {L:g} mm)")
-    sign = -1.0 if effect == "V-" else 1.0
-    best = Extreme(0.0, None)
+    return envelope_many(effect, L, [x], t)[0]
+
+
+def _spacings(
+    L: float, x: float, front: list[float], rear: list[float], low: float, high: float
+) -> list[float]:
+    """The candidate variable spacings at ``x`` (see :func:`envelope_variable`), ascending."""
     marks = (0.0, x, L)
-    lo, hi = favourable_region(effect, L, x)
-    fav = (lo, hi, _integral(effect, L, x, lo, hi)) if t.q_around > 0.0 else (lo, hi, 0.0)
-    sides = (1,) if effect == "M" else (1, -1)  # the moment has no jump at the station
-    for heading in (1,) if _symmetric(t) else (1, -1):
-        edges = (-t.gap_before, t.length + t.gap_after) if t.q_around > 0.0 else ()
-        cands = np.unique([b - heading * o for b in marks for o in (*t.offsets, *edges)])
-        pieces = cands
-        if t.q_around > 0.0 and len(cands) > 1:
-            # vertices of the quadratic pieces between consecutive breakpoints
-            a, b = cands[:-1], cands[1:]
-            w = b - a
-            xs = [a + f * w for f in (0.25, 0.5, 0.75)]
-            y0, y1, y2 = (_values(effect, L, x, t, c, heading, 1, fav) for c in xs)
-            curv = y0 - 2.0 * y1 + y2
-            ok = (w > 1e-9) & (np.abs(curv) > 1e-12 * (np.abs(y1) + 1.0))
-            c = xs[1] - 0.25 * w * (y2 - y0) / np.where(ok, 2.0 * curv, 1.0)
-            ok &= (c > a) & (c < b)
-            pieces = np.concatenate([cands, c[ok]])
-        for side in sides:
-            vals = sign * _values(effect, L, x, t, pieces, heading, side, fav)
-            k = int(np.argmax(vals))
-            v = float(vals[k])
-            if v > sign * best.value + 1e-9 * (abs(best.value) + 1.0):
-                best = Extreme(sign * v, Placement(float(pieces[k]), heading))
-    return best
+    cands = {low, high}
+    for b1, b2 in itertools.product(marks, repeat=2):
+        for f, r in itertools.product(front, rear):
+            s = (b2 - b1) + f - front[-1] - r
+            if low <= s <= high:
+                cands.add(s)
+    return sorted(cands)
+
+
+def envelope_variable_many(
+    effect: Effect,
+    L: float,
+    xs: Sequence[float],
+    P: Sequence[float],
+    offsets: Sequence[float],
+    variable: int,
+    low: float,
+    high: float,
+) -> list[Extreme]:
+    """:func:`envelope_variable` at every station of ``xs`` at once: every candidate
+    spacing of every station is one row of one batch.
+
+    Raises:
+        InputError: an index or a spacing range that does not fit the loads, or a station
+            outside the span.
+    """
+    if not 0 < variable < len(P) or not 0.0 < low <= high or len(offsets) != len(P):
+        raise InputError(f"variable spacing #{variable} in [{low:g}, {high:g}] mm does not fit")
+    _check_stations(L, xs)
+    front = [float(o) for o in offsets[:variable]]
+    rear = [float(o) - float(offsets[variable]) for o in offsets[variable:]]
+    per = [_spacings(L, x, front, rear, low, high) for x in xs]
+    row_x = [x for x, ss in zip(xs, per, strict=True) for _ in ss]
+    row_s = [s for ss in per for s in ss]
+    if not row_x:
+        return []
+    offs = np.asarray([(*front, *(front[-1] + s + r for r in rear)) for s in row_s], dtype=float)
+    t = Train(tuple(P), tuple(offs[0]))
+    sym = np.asarray([_symmetric(Train(tuple(P), tuple(o))) for o in offs])
+    best = np.zeros(len(row_x))
+    first = np.zeros(len(row_x))
+    head = np.zeros(len(row_x), dtype=int)
+    found = np.zeros(len(row_x), dtype=bool)
+    for flag, headings in ((True, (1,)), (False, (1, -1))):
+        idx = np.flatnonzero(sym == flag)
+        if len(idx):
+            r = _rows(effect, L, [row_x[i] for i in idx], offs[idx], t)
+            b, f, h, ok = _best(effect, L, r, headings)
+            best[idx], first[idx], head[idx], found[idx] = b, f, h, ok
+    sign = -1.0 if effect == "V-" else 1.0
+    out = []
+    i = 0
+    for ss in per:
+        e = Extreme(0.0, None)
+        for s in ss:
+            v = float(best[i])
+            if found[i] and sign * v > sign * e.value + 1e-9 * (abs(e.value) + 1):
+                e = Extreme(v, Placement(float(first[i]), int(head[i]), s))
+            i += 1
+        out.append(e)
+    return out
 
 
 def envelope_variable(
@@ -292,27 +425,9 @@ def envelope_variable(
     Exact: the effect is piecewise linear in (position, spacing); its extremes lie at the
     bounds of the spacing or where a load of the front group stands on a breakpoint (support
     or station) while a load of the rear group stands on another (facts of piecewise-linear
-    functions). Each candidate spacing is then solved exactly by :func:`envelope`.
+    functions). Each candidate spacing is then solved exactly as :func:`envelope` does.
 
     Raises:
         InputError: an index or a spacing range that does not fit the loads.
     """
-    if not 0 < variable < len(P) or not 0.0 < low <= high or len(offsets) != len(P):
-        raise InputError(f"variable spacing #{variable} in [{low:g}, {high:g}] mm does not fit")
-    front = [float(o) for o in offsets[:variable]]
-    rear = [float(o) - float(offsets[variable]) for o in offsets[variable:]]
-    marks = (0.0, x, L)
-    cands = {low, high}
-    for b1, b2 in itertools.product(marks, repeat=2):
-        for f, r in itertools.product(front, rear):
-            s = (b2 - b1) + f - front[-1] - r
-            if low <= s <= high:
-                cands.add(s)
-    sign = -1.0 if effect == "V-" else 1.0
-    best = Extreme(0.0, None)
-    for s in sorted(cands):
-        offs = (*front, *(front[-1] + s + r for r in rear))
-        e = envelope(effect, L, x, Train(tuple(P), offs))
-        if e.at is not None and sign * e.value > sign * best.value + 1e-9 * (abs(best.value) + 1):
-            best = Extreme(e.value, Placement(e.at.first, e.at.heading, s))
-    return best
+    return envelope_variable_many(effect, L, [x], P, offsets, variable, low, high)[0]

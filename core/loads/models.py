@@ -22,6 +22,7 @@ applied by the caller, except for LM1 with explicit lane shares. Units N, mm (N/
 from __future__ import annotations
 
 import math
+from collections.abc import Sequence
 from dataclasses import dataclass, field
 from typing import Literal
 
@@ -32,8 +33,8 @@ from core.loads.influence import (
     Extreme,
     Placement,
     Train,
-    envelope,
-    envelope_variable,
+    envelope_many,
+    envelope_variable_many,
     favourable_area,
 )
 from core.units import to_internal
@@ -97,6 +98,11 @@ class LiveEnvelope:
         return LiveEnvelope(self.model, self.x, sc(self.M), sc(self.V_pos), sc(self.V_neg))
 
 
+def _combine(key: str, xs: Sequence[float], cols: list[list[EnvelopeValue]]) -> list[LiveEnvelope]:
+    """The envelopes of the stations ``xs`` from the columns M, V+ and V- (one value each)."""
+    return [LiveEnvelope(key, x, m, vp, vn) for x, m, vp, vn in zip(xs, *cols, strict=True)]
+
+
 def _where(e: Extreme, unit: str, scale: float) -> str:
     return "no load on the span" if e.at is None else e.at.words(unit, scale)
 
@@ -139,30 +145,37 @@ class HL93:
     tandem_offsets = (0.0, 4.0 * FT)
     lane_w = 0.64 * KIP_PER_FT
 
-    def _one(self, effect: Effect, L: float, x: float) -> EnvelopeValue:
-        truck = envelope_variable(
-            effect, L, x, self.truck_P, self.truck_offsets, 2, 14.0 * FT, 30.0 * FT
+    def _many(self, effect: Effect, L: float, xs: Sequence[float]) -> list[EnvelopeValue]:
+        trucks = envelope_variable_many(
+            effect, L, xs, self.truck_P, self.truck_offsets, 2, 14.0 * FT, 30.0 * FT
         )
-        tandem = envelope(effect, L, x, Train(self.tandem_P, self.tandem_offsets))
+        tandems = envelope_many(effect, L, xs, Train(self.tandem_P, self.tandem_offsets))
         sign = -1.0 if effect == "V-" else 1.0
-        use, name = (
-            (truck, "design truck")
-            if sign * truck.value >= sign * tandem.value
-            else (
-                tandem,
-                "design tandem",
-            )
-        )
-        lane = self.lane_w * favourable_area(effect, L, x)
         f = 1.0 + self.IM
-        parts = (
-            Part(f"{name} x (1 + IM) = {f:.2f}", f * use.value, _where(use, self.unit, FT)),
-            Part("design lane load 0.64 kip/ft (no IM)", lane, _lane_at(effect)),
-        )
-        return EnvelopeValue(f * use.value + lane, parts)
+        out = []
+        for x, truck, tandem in zip(xs, trucks, tandems, strict=True):
+            use, name = (
+                (truck, "design truck")
+                if sign * truck.value >= sign * tandem.value
+                else (
+                    tandem,
+                    "design tandem",
+                )
+            )
+            lane = self.lane_w * favourable_area(effect, L, x)
+            parts = (
+                Part(f"{name} x (1 + IM) = {f:.2f}", f * use.value, _where(use, self.unit, FT)),
+                Part("design lane load 0.64 kip/ft (no IM)", lane, _lane_at(effect)),
+            )
+            out.append(EnvelopeValue(f * use.value + lane, parts))
+        return out
+
+    def envelopes(self, L: float, xs: Sequence[float]) -> list[LiveEnvelope]:
+        """:meth:`envelope` at every station of ``xs`` at once."""
+        return _combine(self.key, xs, [self._many(e, L, xs) for e in EFFECTS])
 
     def envelope(self, L: float, x: float) -> LiveEnvelope:
-        return LiveEnvelope(self.key, x, *(self._one(e, L, x) for e in EFFECTS))
+        return self.envelopes(L, [x])[0]
 
     def assumptions(self) -> list[AssumptionLine]:
         return [
@@ -212,24 +225,35 @@ class AxleTrain:
         """Gross weight, N."""
         return sum(self.P)
 
-    def moment(self, L: float, x: float) -> float:
-        """The sagging moment of :meth:`envelope` alone (N*mm): ``envelope(L, x).M.value``
-        without the shears (what fatigue needs)."""
-        return (1.0 + self.IM) * envelope("M", L, x, Train(self.P, self.offsets)).value
+    def moments(self, L: float, xs: Sequence[float]) -> list[float]:
+        """The sagging moment of :meth:`envelope` alone (N*mm) at every station of ``xs``:
+        ``envelope(L, x).M.value`` without the shears (what fatigue needs)."""
+        t = Train(self.P, self.offsets)
+        return [(1.0 + self.IM) * e.value for e in envelope_many("M", L, xs, t)]
 
-    def envelope(self, L: float, x: float) -> LiveEnvelope:
+    def moment(self, L: float, x: float) -> float:
+        """:meth:`moments` at one station."""
+        return self.moments(L, [x])[0]
+
+    def envelopes(self, L: float, xs: Sequence[float]) -> list[LiveEnvelope]:
+        """:meth:`envelope` at every station of ``xs`` at once."""
         t = Train(self.P, self.offsets)
         f = 1.0 + self.IM
-        vals = []
+        what = f"{self.name} x (1 + {self.IM:g})" if self.IM else self.name
+        cols = []
         for e in EFFECTS:
-            ex = envelope(e, L, x, t)
-            what = f"{self.name} x (1 + {self.IM:g})" if self.IM else self.name
-            vals.append(
-                EnvelopeValue(
-                    f * ex.value, (Part(what, f * ex.value, _where(ex, self.unit, self.scale)),)
-                )
+            cols.append(
+                [
+                    EnvelopeValue(
+                        f * ex.value, (Part(what, f * ex.value, _where(ex, self.unit, self.scale)),)
+                    )
+                    for ex in envelope_many(e, L, xs, t)
+                ]
             )
-        return LiveEnvelope(self.key, x, *vals)
+        return _combine(self.key, xs, cols)
+
+    def envelope(self, L: float, x: float) -> LiveEnvelope:
+        return self.envelopes(L, [x])[0]
 
     def assumptions(self) -> list[AssumptionLine]:
         axles = ", ".join(f"{p / (KIP if self.unit == 'ft' else KN):.4g}" for p in self.P)
@@ -310,32 +334,43 @@ class LM71:
             gap_after=0.8 * M,
         )
 
-    def moment(self, L: float, x: float) -> float:
-        """The sagging moment of :meth:`envelope` alone (N*mm): ``envelope(L, x).M.value``
-        without the shears (what fatigue needs)."""
+    def moments(self, L: float, xs: Sequence[float]) -> list[float]:
+        """The sagging moment of :meth:`envelope` alone (N*mm) at every station of ``xs``:
+        ``envelope(L, x).M.value`` without the shears (what fatigue needs)."""
         Phi, _name = self.phi(L)
-        return self.alpha * Phi * envelope("M", L, x, self.train()).value
+        return [self.alpha * Phi * e.value for e in envelope_many("M", L, xs, self.train())]
 
-    def envelope(self, L: float, x: float) -> LiveEnvelope:
+    def moment(self, L: float, x: float) -> float:
+        """:meth:`moments` at one station."""
+        return self.moments(L, [x])[0]
+
+    def envelopes(self, L: float, xs: Sequence[float]) -> list[LiveEnvelope]:
+        """:meth:`envelope` at every station of ``xs`` at once."""
         Phi, name = self.phi(L)
         t = self.train()
         f = self.alpha * Phi
-        vals = []
+        what = f"LM71 x alpha {self.alpha:g} x {name} {Phi:.3f}"
+        cols = []
         for e in EFFECTS:
-            ex = envelope(e, L, x, t)
-            vals.append(
-                EnvelopeValue(
-                    f * ex.value,
-                    (
-                        Part(
-                            f"LM71 x alpha {self.alpha:g} x {name} {Phi:.3f}",
-                            f * ex.value,
-                            _where(ex, "m", M) + "; 80 kN/m where unfavourable beyond 0.8 m",
+            cols.append(
+                [
+                    EnvelopeValue(
+                        f * ex.value,
+                        (
+                            Part(
+                                what,
+                                f * ex.value,
+                                _where(ex, "m", M) + "; 80 kN/m where unfavourable beyond 0.8 m",
+                            ),
                         ),
-                    ),
-                )
+                    )
+                    for ex in envelope_many(e, L, xs, t)
+                ]
             )
-        return LiveEnvelope(self.key, x, *vals)
+        return _combine(self.key, xs, cols)
+
+    def envelope(self, L: float, x: float) -> LiveEnvelope:
+        return self.envelopes(L, [x])[0]
 
     def assumptions(self, L: float) -> list[AssumptionLine]:
         Phi, name = self.phi(L)
@@ -388,26 +423,32 @@ class LM1:
         ):
             raise InputError(f"lane shares {self.lane_shares} must be 1 to 6 values in 0 to 2")
 
-    def envelope(self, L: float, x: float) -> LiveEnvelope:
+    def envelopes(self, L: float, xs: Sequence[float]) -> list[LiveEnvelope]:
+        """:meth:`envelope` at every station of ``xs`` at once."""
         shares = self.lane_shares or (1.0,)
         ts = Train((1.0, 1.0), (0.0, 1.2 * M))
         kQ = sum(s * (self.Q[i] if i < 3 else 0.0) for i, s in enumerate(shares)) * self.alpha_Q
         kq = sum(s * (self.q[0] if i == 0 else self.q[1]) for i, s in enumerate(shares))
         kq *= self.alpha_q
-        vals = []
+        cols = []
         for e in EFFECTS:
-            ex = envelope(e, L, x, ts)
-            udl = kq * favourable_area(e, L, x)
-            vals.append(
-                EnvelopeValue(
-                    kQ * ex.value + udl,
-                    (
-                        Part("LM1 tandem systems", kQ * ex.value, _where(ex, "m", M)),
-                        Part("LM1 uniform loads", udl, _lane_at(e)),
-                    ),
+            col = []
+            for x, ex in zip(xs, envelope_many(e, L, xs, ts), strict=True):
+                udl = kq * favourable_area(e, L, x)
+                col.append(
+                    EnvelopeValue(
+                        kQ * ex.value + udl,
+                        (
+                            Part("LM1 tandem systems", kQ * ex.value, _where(ex, "m", M)),
+                            Part("LM1 uniform loads", udl, _lane_at(e)),
+                        ),
+                    )
                 )
-            )
-        return LiveEnvelope(self.key, x, *vals)
+            cols.append(col)
+        return _combine(self.key, xs, cols)
+
+    def envelope(self, L: float, x: float) -> LiveEnvelope:
+        return self.envelopes(L, [x])[0]
 
     def assumptions(self) -> list[AssumptionLine]:
         shares = self.lane_shares

@@ -12,11 +12,12 @@ from pathlib import Path
 from reportlab.platypus import PageBreak, Paragraph
 
 from core.assess import Assessment, AssessOptions, assess, options_from_dict
+from core.assess.tomeasure import left_to_measure
 from core.checks.flags import Level
 from core.choices import options_for
 from core.errors import InputError
 from core.outputs import atomic_output, check_output
-from core.report import cover, member, notes
+from core.report import cover, member, notes, notmeasured
 from core.report.page import PageInfo, canvas_maker, document
 from core.report.source import Source, read_source
 from core.report.styles import MARGIN, Styles, esc, page_size
@@ -50,11 +51,14 @@ def story(
     if other:
         out.append(Paragraph("Other problems found by the survey's validation", st.h2))
         out += [Paragraph(f"<b>{esc(p.level)}</b>: {esc(p.message)}", st.small) for p in other]
+    left = left_to_measure(survey, a.family.key if a.family else None)
     for m in a.members:
         out.append(PageBreak())
         out += member.member_pages(
             st, m, survey.member(m.member), problems, src.path, system, width, info, a.family
         )
+        items = left.of(m.member, whole=True)
+        out += notmeasured.section(st, items, len(m.stations), system, width)
     out.append(PageBreak())
     out += notes.assumptions(st, a, system, width)
     out += notes.history(st, src, system, width)

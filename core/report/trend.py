@@ -233,6 +233,8 @@ def _rate_table(st: Styles, r: TrendResult, member: str, system: str, width: flo
         by_year = dict(zip(rs.years, rs.t, strict=True))
         rate = f"{rt.r * c:.{dig + 2}f}" + ("" if rt.se is None else f" ± {rt.se * c:.{dig + 2}f}")
         mm = f"{rt.r:.3f}" + ("" if rt.se is None else f" ± {rt.se:.3f}")
+        if not rt.has_rate:  # never a zero that reads as "no loss"
+            rate = mm = "no rate"
         if "thickening" in rt.note:
             thick.append(f"{rs.station} {rs.label}")
         far = r.projected_t(rs, r.horizon) * c

@@ -12,6 +12,7 @@ from fieldapp.screens.rivets import RivetsScreen
 from fieldapp.screens.station import StationScreen
 from fieldapp.screens.surveys import SurveysScreen
 from fieldapp.sheets import ConfirmSheet
+from fieldapp.strip import SpanStrip
 
 
 class Root(BoxLayout):
@@ -32,6 +33,7 @@ __all__ = [
     "RivetsScreen",
     "Root",
     "SectionView",
+    "SpanStrip",
     "StationScreen",
     "StretchAxis",
     "SurveysScreen",

@@ -15,7 +15,7 @@ from kivy.uix.screenmanager import Screen
 from core.errors import AsfoundError
 from core.section import analyse
 from core.sectionfile import definition_from_dict
-from core.units import show
+from core.units import from_internal, show
 from fieldapp import present, templates
 from fieldapp.session import parse_number
 from fieldapp.theme import TOUCH_DP
@@ -24,6 +24,7 @@ from fieldapp.theme import TOUCH_DP
 class MemberScreen(Screen):
     next_id = StringProperty("name (or S2)")
     position_unit = StringProperty("m")
+    current = StringProperty("")
 
     def __init__(self, **kw) -> None:
         super().__init__(**kw)
@@ -80,7 +81,7 @@ class MemberScreen(Screen):
         box = self.ids.stations
         box.clear_widgets()
         m = s.store.to_survey().member(s.member_id)
-        for st in m.stations:
+        for st in sorted(m.stations, key=lambda st: (st.position, st.id)):  # along the span
             b = Factory.Big(
                 text=f"{st.id} at {st.position:g} {s.position_unit}",
                 chosen=st.id == s.station_id,
@@ -90,6 +91,15 @@ class MemberScreen(Screen):
             box.add_widget(b)
         self.position_unit = s.position_unit
         self.next_id = f"name (or {s.next_station_id()})"
+        self.current = s.station_id
+        strip = self.ids.strip
+        pu = s.position_unit
+        strip.unit = pu
+        strip.span = from_internal(m.span_mm(), "length", pu)
+        strip.supports = [x.position for x in m.supports]
+        strip.stiffeners = [x.position for x in m.stiffeners]
+        strip.stations = [(x.id, x.position) for x in m.stations]
+        strip.selected = s.station_id
 
     def values(self, key: str | None = None, text: str | None = None) -> dict:
         """The stored values, with ``key`` set to the number typed as ``text``."""
@@ -186,6 +196,89 @@ class MemberScreen(Screen):
             partial(self.add_station, name),
             hint=f"The member is {span.value:g} {span.unit} long.",
         )
+
+    def ask_offset(self) -> None:
+        """The pad for the distance of a new station from the current one; Enter adds it."""
+        app = App.get_running_app()
+        s = app.session
+        here = s.station()
+        name = self.ids.new_id.text.strip() or s.next_station_id()
+        app.ask_number(
+            f"New station {name}: distance from {here.id} at {here.position:g} {s.position_unit}",
+            "",
+            s.position_unit,
+            partial(self._add_after, name),
+            minus=True,
+            hint="Along the member: minus goes towards its start.",
+        )
+
+    def _add_after(self, name: str, offset: str) -> str:
+        app = App.get_running_app()
+        try:
+            saved = app.session.add_station_after(offset, name)
+        except AsfoundError as e:
+            return str(e)
+        self.ids.new_id.text = ""
+        app.entry_done(f"station {saved.id}", saved.warnings)
+        app.go("station")
+        return ""
+
+    def ask_move(self) -> None:
+        """The pad with the current station's position; Enter moves it there."""
+        app = App.get_running_app()
+        s = app.session
+        here = s.station()
+        app.ask_number(
+            f"Move station {here.id} to ({s.position_unit} from the member's start)",
+            f"{here.position:g}",
+            s.position_unit,
+            self._move,
+            hint=f"The member is {s.member().span.value:g} {s.member().span.unit} long.",
+        )
+
+    def _move(self, position: str) -> str:
+        app = App.get_running_app()
+        s = app.session
+        try:
+            before = s.station().position
+            saved = s.move_station(position)
+        except AsfoundError as e:
+            return str(e)
+        after = s.station().position
+        if after != before:
+            app.entry_done(
+                f"station {saved.id} moved from {before:g} to {after:g} {s.position_unit}",
+                saved.warnings,
+            )
+        self.refresh()
+        return ""
+
+    def ask_withdraw(self) -> None:
+        """Ask before withdrawing the current station with everything entered at it."""
+        app = App.get_running_app()
+        s = app.session
+        st = s.station()
+        parts = [f"{len(st.readings)} reading(s)"]
+        if st.bands:
+            parts.append(f"{len(st.bands)} band(s)")
+        if st.perforations:
+            parts.append(f"{len(st.perforations)} perforation(s)")
+        app.confirm.ask(
+            f"Withdraw station {st.id} at {st.position:g} {s.position_unit} with its "
+            + ", ".join(parts)
+            + "? It stays in the history and can be undone.",
+            "Withdraw",
+            self._withdraw_now,
+            "Keep it",
+        )
+
+    def _withdraw_now(self) -> None:
+        app = App.get_running_app()
+        sid = app.guard(app.session.withdraw_station)
+        if sid:
+            app.tell(f"withdrew station {sid} (Undo brings it back)", "ok")
+            self.refresh()
+            app.refresh_results()
 
     def add_station(self, name: str, position: str) -> str:
         app = App.get_running_app()

@@ -20,9 +20,11 @@ from core.errors import AsfoundError
 from core.parts import Angle
 from core.section import analyse
 from core.survey import station_stats
+from core.survey.readings import MIN_READINGS
 from core.units import from_internal
 from fieldapp import present
 from fieldapp.names import LEG_NAMES, part_name, place_name
+from fieldapp.present import left_here
 from fieldapp.screens.entries import EntriesMixin
 from fieldapp.screens.stationentry import EntryMixin
 from fieldapp.theme import TOUCH_DP
@@ -119,7 +121,10 @@ class StationScreen(EntryMixin, EntriesMixin, Screen):
     def _part_info(self, s, st, m, defn) -> None:
         ids = self.ids
         if not self.part:
-            ids.stats.text = "Tap a part on the drawing or a name below it."
+            left = left_here(m, st, most=2)
+            ids.stats.text = (
+                ("Tap a part. " + left) if left else "Tap a part on the drawing or a name below it."
+            )
             self.pad_title()
             return
         part = defn.part(self.part)
@@ -150,12 +155,16 @@ class StationScreen(EntryMixin, EntriesMixin, Screen):
             cov = "" if x.cov is None else f", COV {100 * x.cov:.1f} %"
             t_min = from_internal(x.t_min, "length", lu)
             t_mean = from_internal(x.t_mean, "length", lu)
+            more = f" ({MIN_READINGS} expected)" if x.n < MIN_READINGS else ""
             ids.stats.text = (
-                f"{place_name(self.part, self.region or None)}: {x.n} reading(s), "
+                f"{place_name(self.part, self.region or None)}: {x.n} reading(s){more}, "
                 f"min {t_min:.4g}, mean {t_mean:.4g} {lu}{cov}"
             )
         else:
-            ids.stats.text = f"{place_name(self.part, self.region or None)}: no readings yet"
+            ids.stats.text = (
+                f"{place_name(self.part, self.region or None)}: no readings yet "
+                f"({MIN_READINGS} expected)"
+            )
         self.pad_title()
 
     def show_result(self, app, result) -> None:

@@ -270,4 +270,4 @@ def test_add_station_on_the_pad_and_step_between_stations(field, tmp_path):
     assert app.sheet.is_open and panel.level == "error" and "outside the member" in panel.message
     d.tap(panel.ids.close_btn)
     assert not app.sheet.is_open
-    assert app.session.station_ids() == ["S1", "S2"]
+    assert app.session.station_ids() == ["S2", "S1"]  # along the span: S2 at 3.5 m, S1 at 7.5 m

@@ -13,13 +13,20 @@ import json
 import os
 import sqlite3
 import stat
+import time
 from pathlib import Path
 
 import pytest
 
 from core.cli import main
 from core.errors import OutputError
-from core.outputs import atomic_output, check_output, identify
+from core.outputs import (
+    STALE_TEMPORARY_S,
+    atomic_output,
+    check_output,
+    identify,
+    sweep_stale_temporaries,
+)
 from core.survey import FieldStore, export_survey, import_survey
 from tests.survey.helpers import SAMPLES, document, write
 
@@ -252,3 +259,28 @@ def test_an_output_that_cannot_be_written_is_an_asfound_error(tmp_path, survey, 
     err = capsys.readouterr().err
     assert f"cannot write {blocker / 'r.pdf'}" in err
     assert blocker.read_text(encoding="utf-8") == "a file where a folder is wanted"
+
+
+def test_a_killed_writers_old_temporaries_are_swept_at_the_next_write_and_nothing_else(tmp_path):
+    """A writer killed mid-write leaves ``.<name>.<hex>.tmp`` (and SQLite companions) beside
+    the target; the next write of that target removes those older than a day, never a
+    fresh one (a writer may still be at work), nor another output's or a foreign file."""
+    out = tmp_path / "s.sqlite"
+    old = time.time() - STALE_TEMPORARY_S - 60
+    stale = [tmp_path / ".s.sqlite.0123456789ab.tmp", tmp_path / ".s.sqlite.0123456789ab.tmp-wal"]
+    kept = [
+        tmp_path / ".s.sqlite.fedcba987654.tmp",  # fresh: a writer may be at work
+        tmp_path / ".t.sqlite.0123456789ab.tmp",  # another output's
+        tmp_path / ".s.sqlite.notatemporary.tmp",  # not a name atomic_output makes
+        tmp_path / "s.sqlite.0123456789ab.tmp",  # not hidden
+    ]
+    for p in stale + kept:
+        p.write_bytes(b"x")
+    for p in stale + kept[1:]:
+        os.utime(p, (old, old))
+    with atomic_output(out) as tmp:
+        tmp.write_bytes(b"new")
+    assert out.read_bytes() == b"new"
+    assert not any(p.exists() for p in stale)
+    assert all(p.exists() for p in kept)
+    assert sweep_stale_temporaries(out) == 0

@@ -121,3 +121,20 @@ def test_exit_codes_as_documented():
     bad = run("assess", str(SAMPLES / "mistakes.json"))
     assert bad.returncode == 2 and b"Traceback" not in bad.stderr
     assert run("assess", SURVEY, "--rating-level", "nonsense").returncode == 2
+
+
+def test_the_assess_table_names_rivet_lines_in_words_and_marks_what_does_not_apply(capsys):
+    """The table names the girder template's rivet lines in words (core.names), both lines
+    of a cover together, and a limit state with no as-found value because the section falls
+    into pieces at that station says "n/a" with the legend under the table (the through
+    girder sample is perforated through the web at its first station)."""
+    from core.cli import main
+
+    main(["assess", str(SAMPLES / "through-girder-us.json")])
+    out = capsys.readouterr().out
+    assert "rivets, bottom line through the web" in out
+    assert "rivets, left and right lines through the bottom cover" in out
+    assert "line web_bottom" not in out and "cover_top_l" not in out
+    first = [ln for ln in out.splitlines() if ln.startswith("N1 ") and "rivets," in ln]
+    assert first and all(ln.rstrip().endswith("n/a") for ln in first)
+    assert "n/a: the limit state does not apply at that station as found" in out

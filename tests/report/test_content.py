@@ -10,6 +10,7 @@ import pytest
 from pypdf import PdfReader
 
 from core import CAUTION
+from core.assess.tomeasure import KIND_WORDS, left_to_measure
 from core.checks.flags import Level
 from core.names import annotated
 from core.report import build_report
@@ -17,7 +18,9 @@ from core.report.cover import CAUTIONS
 from core.report.fmt import position, ratio, rf, value
 from core.report.member import governing_stations, shear_for_plot
 from core.report.notes import check_sources
+from core.report.notmeasured import grouped
 from core.report.styles import LEVEL_MARK
+from core.survey.document import load_survey
 
 from .helpers import SI_SAMPLE, US_SAMPLE, flat, pdf_pages
 
@@ -217,3 +220,20 @@ def test_the_assumptions_state_the_girder_bases_and_nothing_is_left_unchecked(us
                  "web at the bearing", "web panels and tension field", "member NG: supports",
                  "member NG: bracing of the top flange"):  # fmt: skip
         assert item in text, item
+
+
+def test_not_measured_lists_every_item_of_the_checklist(si, us):
+    """Every item of core.assess.tomeasure for the member is in its "Not measured" table,
+    with its stations (all of them named once when it holds at every station)."""
+    for (rep, pages, _), path in ((si, SI_SAMPLE), (us, US_SAMPLE)):
+        survey, _ = load_survey(path)
+        member = rep.assessment.members[0].member
+        items = left_to_measure(survey, rep.assessment.family.key).of(member, whole=True)
+        assert items, "the samples leave parts unread"
+        page = next(p for p in pages if "Not measured" in p)
+        n = len(rep.assessment.members[0].stations)
+        for i, stations in grouped(items):
+            assert flat(f"{KIND_WORDS[i.kind]} {i.subject}") in page, i
+            if len(stations) == n:
+                assert f"every station ({n})" in page
+        assert "not conservative where it has corroded" in page

@@ -137,3 +137,22 @@ def test_a_band_found_fully_lost_is_held_and_the_rest_goes_on():
     rest = [t for t in r.tracked if t.station != "S3"]
     going = [t for t in rest if t.projected[0] is not None]
     assert going and all(t.projected[1] is not None for t in going)  # 5 years on
+
+
+def test_the_report_shows_no_rate_where_a_region_has_none(tmp_path):
+    """The PDF's rate table says "no rate" for such a region, never a 0.0000 that reads as
+    "no further loss" (checked in the page text with pdftotext)."""
+    import shutil
+    import subprocess
+
+    from core.report.trend import write_trend_report
+
+    surveys = _pair(PIT, year_built=None)
+    r = trend(["a.json", "b.json"], surveys=surveys, horizon=20.0, step_years=5.0)
+    out = tmp_path / "t.pdf"
+    write_trend_report(r, out, "si")
+    if shutil.which("pdftotext") is None:
+        return
+    text = subprocess.run(["pdftotext", "-layout", str(out), "-"], capture_output=True, text=True)
+    line = next(ln for ln in text.stdout.splitlines() if ln.startswith("S3") and "band pit" in ln)
+    assert "no rate" in line and "0.0000" not in line and "0.000 " not in line, line
