@@ -16,7 +16,7 @@ import sqlite3
 import pytest
 
 from core.survey.merge import merge_stores
-from core.survey.migrations import V2_SCHEMA
+from core.survey.migrations import V2_SCHEMA, migrated_uid
 from core.survey.store import FieldStore
 
 from .helpers import header, member
@@ -167,3 +167,128 @@ def test_an_entry_without_its_add_row_is_decided_by_content(tmp_path):
     values = _readings(res.output)
     assert sorted(v for k, v in values.items() if k not in ("r1", "r2")) == [8.8, 9.0]
     assert [(c.what, c.entity) for c in res.conflicts] == [("renamed", "r5")]
+
+
+# ------------------------------------------- one copy migrated by the earlier uid rule
+def _old_rule(path) -> None:
+    """Give the entries of a store made before layout 3 the uids asfound gave them before
+    the uid hashed the ``add`` row (creation time and key only), as a copy migrated by that
+    asfound holds them."""
+    conn = sqlite3.connect(path)
+    try:
+        for k, m, s, i in conn.execute("SELECT kind, member, station, id FROM entity").fetchall():
+            conn.execute(
+                "UPDATE entity SET uid = ? WHERE kind = ? AND member = ? AND station = ?"
+                " AND id = ?",
+                (migrated_uid(CREATED, k, m, s, i), k, m, s, i),
+            )
+        conn.commit()
+    finally:
+        conn.close()
+
+
+def _history(path) -> list[tuple]:
+    """History rows without their numbers and the migrations' own rows."""
+    conn = sqlite3.connect(path)
+    try:
+        return sorted(
+            conn.execute(
+                "SELECT at, who, action, kind, entity, field, old, new FROM history"
+                " WHERE action != 'migrate'"
+            ).fetchall()
+        )
+    finally:
+        conn.close()
+
+
+@pytest.mark.parametrize("b_on_disk", [False, True])
+def test_a_copy_migrated_by_the_earlier_rule_merges_without_doubling(tmp_path, b_on_disk):
+    a, b = _start(tmp_path)
+    _apart(a, b)
+    FieldStore.open(a, device=DEVICES[0]).close()
+    _old_rule(a)
+    if b_on_disk:  # else b is still at layout 2 and the merge migrates it in memory
+        FieldStore.open(b, device=DEVICES[1]).close()
+    ua = _uids(a)
+    assert ua[("reading", "r1")][0] == migrated_uid(CREATED, "reading", "G1", "S1", "r1")
+    if b_on_disk:
+        assert _uids(b)[("reading", "r1")][0] != ua[("reading", "r1")][0]  # two rules
+    before = {p: p.read_bytes() for p in (a, b)}
+    ab = merge_stores(a, b, tmp_path / "ab.asf")
+    ba = merge_stores(b, a, tmp_path / "ba.asf")
+    assert {p: p.read_bytes() for p in (a, b)} == before  # the inputs are untouched
+    for res in (ab, ba):
+        # the shared entries are one each; only the two r3 made apart are both kept
+        assert _readings(res.output) == {"r1": 8.0, "r2": 8.3, "r3": 7.0, "r4": 7.4}
+        assert [(c.what, c.entity, c.kept, c.other) for c in res.conflicts] == [
+            ("renamed", "r3", "r3", "r4")
+        ]
+        assert (res.only_a, res.only_b, res.both) == (1, 1, 4)
+    assert sorted(_uids(ab.output).items()) == sorted(_uids(ba.output).items())
+    assert _history(ab.output) == _history(ba.output)
+    # merging the result with either input again doubles nothing
+    again = merge_stores(ab.output, a, tmp_path / "again.asf")
+    assert _readings(again.output) == _readings(ab.output)
+    assert [c.what for c in again.conflicts] == []
+
+
+@pytest.mark.parametrize(
+    "b_add",
+    [("2024-06-01T10:00:01", "ann"), ("2024-06-01T10:00:00", "bob")],
+    ids=["other-time", "other-person"],
+)
+def test_entries_alike_in_key_and_value_but_made_apart_are_not_collapsed(tmp_path, b_add):
+    # both copies made r3 = 7.0 mm after the split; one second apart or by two people:
+    # two entries, whatever the uid rule of either copy
+    a, b = _start(tmp_path)
+    s = V2(a)
+    s.add("reading", "G1", "S1", _reading("r3", 7.0), "2024-06-01T10:00:00", "ann")
+    s.close()
+    s = V2(b)
+    s.add("reading", "G1", "S1", _reading("r3", 7.0), *b_add)
+    s.close()
+    FieldStore.open(a, device=DEVICES[0]).close()
+    _old_rule(a)
+    for res in (
+        merge_stores(a, b, tmp_path / "ab.asf"),
+        merge_stores(b, a, tmp_path / "ba.asf"),
+    ):
+        assert _readings(res.output) == {"r1": 8.1, "r2": 8.4, "r3": 7.0, "r4": 7.0}
+        assert [(c.what, c.entity, c.other) for c in res.conflicts] == [("renamed", "r3", "r4")]
+
+
+def test_entries_made_alike_in_every_respect_are_one(tmp_path):
+    # the same add row (time, person, content) in both copies after the split: nothing
+    # tells them apart, and one entry is what was made
+    a, b = _start(tmp_path)
+    for p in (a, b):
+        s = V2(p)
+        s.add("reading", "G1", "S1", _reading("r3", 7.0), "2024-06-01T10:00:00", "ann")
+        s.close()
+    FieldStore.open(a, device=DEVICES[0]).close()
+    _old_rule(a)
+    res = merge_stores(a, b, tmp_path / "ab.asf")
+    assert _readings(res.output) == {"r1": 8.1, "r2": 8.4, "r3": 7.0}
+    assert res.conflicts == ()
+
+
+def test_an_entry_without_its_add_row_under_two_rules_is_decided_by_content(tmp_path):
+    # alike in both copies: one entry, though one copy has the earlier rule's uid
+    a, b = _start(tmp_path, unrecorded=True)
+    FieldStore.open(a, device=DEVICES[0]).close()
+    _old_rule(a)
+    res = merge_stores(b, a, tmp_path / "c.asf")
+    assert _readings(res.output) == {"r1": 8.1, "r2": 8.4, "r5": 9.0} and res.conflicts == ()
+    # changed on one copy (no add row to tell one entry from two): both kept, listed
+    sub = tmp_path / "changed"
+    sub.mkdir()
+    a, b = _start(sub, unrecorded=True)
+    s = V2(b)
+    s.update("r5", 8.8, "2024-06-01T10:00:00", "bob")
+    s.close()
+    FieldStore.open(a, device=DEVICES[0]).close()
+    _old_rule(a)
+    for res in (merge_stores(a, b, sub / "ab.asf"), merge_stores(b, a, sub / "ba.asf")):
+        values = _readings(res.output)
+        assert sorted(v for k, v in values.items() if k not in ("r1", "r2")) == [8.8, 9.0]
+        assert [(c.what, c.entity) for c in res.conflicts] == [("renamed", "r5")]
