@@ -7,7 +7,9 @@ The rule:
   Their common start is the longest run of changes, from the first, that both histories
   hold alike; a change made later is the same change in both when its device, person and
   rows are alike (a store merged before and merged again).
-* Entries are matched by their uid, never by display id. An entry only one store has
+* Entries are matched by their uid, never by display id; an entry made before layout 3
+  that two copies migrated by two rules hold under two uids is first given one
+  (:mod:`core.survey.mergematch`: same key and same ``add`` row). An entry only one store has
   comes through unchanged. When both devices made an entry with the same display id
   (both made station ``S4``), both are kept; the later one (see below) is renamed: a
   reading, band or perforation to the next free number of its prefix (``r4`` to ``r7``),
@@ -45,6 +47,7 @@ from pydantic import ValidationError
 from core.errors import AsfoundError, InputError, StoreError
 from core.outputs import atomic_output, check_output, same_file
 from core.survey.device import check_device, short, this_device
+from core.survey.mergematch import match_by_add
 from core.survey.mergeside import (
     Change,
     Conflict,
@@ -136,6 +139,7 @@ def _survey_id(s: Side) -> str:
 def plan_merge(sa: Side, sb: Side) -> Plan:
     """Decide the merged entries, header, history and conflicts of two read stores
     (``sa`` and ``sb`` are changed: renames are made in them)."""
+    match_by_add(sa, sb)
     n = 0
     while n < min(len(sa.changes), len(sb.changes)) and sa.changes[n].same(sb.changes[n]):
         n += 1

@@ -7,9 +7,23 @@ column) and groups the rows of one change (``change`` column) so a change can be
 Version 3 records on which device each change was made (``history.device``; rows written
 before it get :data:`DEVICE_BEFORE_V3`, so no device can undo them), which change an undo
 reverted (``history.undoes``), and gives every entry an id unique across devices
-(``entity.uid``: 32 hex digits, random for new entries; for entries migrated from an older
-layout a hash of the store's creation time and the entry's key, so two copies of one store
-migrated apart give the same ids), for a later merge of two devices' stores.
+(``entity.uid``: 32 hex digits, random for new entries), for a later merge of two devices'
+stores.
+
+An entry made before layout 3 gets a uid that is a hash of the store's creation time, the
+entry's key (kind, member, station, id) and the history row that made it (the latest
+``add`` row of that key: its time, person and content), or, where the history has no such
+row, the entry's content and withdrawn flag at migration. The rule, and why: two copies of
+one store split before layout 3 and migrated apart must agree on the entries they shared,
+and both copies hold the same ``add`` row of such an entry (history rows are never
+rewritten), so they give it the same uid, whatever either device changed in it later (its
+changes come to the merge as changes of one entry). Entries made apart on the two devices
+after the split, before layout 3, can share a key (both made reading ``r4``; the device
+was not recorded then), but not the time, person and content of the row that made them:
+they get two uids and the merge keeps both (the later one renamed, listed). Without an
+``add`` row the copies cannot tell a shared entry from two made apart; content decides:
+alike, one entry; not alike (changed apart, or made apart), both are kept and the clash is
+listed, so nothing is mixed or lost.
 """
 
 from __future__ import annotations
@@ -125,10 +139,33 @@ def _v1_to_v2(conn: sqlite3.Connection, at: str, device: str) -> None:
     )
 
 
-def migrated_uid(created: str, kind: str, member: str, station: str, ident: str) -> str:
-    """The uid of an entry that existed before layout 3 (the same in every copy of a store)."""
-    key = "\x1f".join((created, kind, member, station, ident))
-    return hashlib.sha256(key.encode("utf-8")).hexdigest()[:32]
+def migrated_uid(
+    created: str, kind: str, member: str, station: str, ident: str, made: str = ""
+) -> str:
+    """The uid of an entry that existed before layout 3 (see the module docstring):
+    ``made`` is :func:`made_by` of the history row that made it, or its content."""
+    parts = (created, kind, member, station, ident, *((made,) if made else ()))
+    return hashlib.sha256("\x1f".join(parts).encode("utf-8")).hexdigest()[:32]
+
+
+def made_by(at: object, who: object, new: object) -> str:
+    """What identifies the row that made an entry in every copy of a store."""
+    return "\x1f".join(("add", str(at), str(who), str(new)))
+
+
+def _made(conn: sqlite3.Connection, table: str) -> dict[tuple, str]:
+    """The latest ``add`` row of each entry key in the history ``table``."""
+    out: dict[tuple, str] = {}
+    for kind, member, station, entity, at, who, new in conn.execute(
+        f"SELECT kind, member, station, entity, at, who, new FROM {table}"
+        " WHERE action = 'add' ORDER BY id"
+    ):
+        out[(kind, member, station, entity)] = made_by(at, who, new)
+    return out
+
+
+def _content(data: object, deleted: object) -> str:
+    return "\x1f".join(("content", str(data), str(deleted)))
 
 
 def _v2_to_v3(conn: sqlite3.Connection, at: str, device: str) -> None:
@@ -144,10 +181,14 @@ def _v2_to_v3(conn: sqlite3.Connection, at: str, device: str) -> None:
     rows = conn.execute(
         "SELECT kind, member, station, id, seq, data, deleted FROM entity_v2 ORDER BY seq"
     ).fetchall()
+    made = _made(conn, "history_v2")
     conn.executemany(
         "INSERT INTO entity(kind, member, station, id, seq, data, deleted, uid)"
         " VALUES (?, ?, ?, ?, ?, ?, ?, ?)",
-        [(*r, migrated_uid(created, *r[:4])) for r in rows],
+        [
+            (*r, migrated_uid(created, *r[:4], made.get(tuple(r[:4])) or _content(r[5], r[6])))
+            for r in rows
+        ],
     )
     conn.execute(
         "INSERT INTO history(id, change, at, who, device, action, kind, member, station, entity,"

@@ -17,7 +17,7 @@ from hypothesis import strategies as st
 
 from core.errors import InputError, StoreError
 from core.survey import UndoRefusedError
-from core.survey.migrations import DEVICE_BEFORE_V3, V2_SCHEMA, migrated_uid
+from core.survey.migrations import DEVICE_BEFORE_V3, V2_SCHEMA, made_by, migrated_uid
 from core.survey.store import FieldStore
 
 from .helpers import header, member
@@ -259,7 +259,14 @@ def test_migration_v2_to_v3_keeps_everything_and_states_the_device(tmp_path):
     assert (
         uids[0]["G1"]
         == uids[1]["G1"]
-        == migrated_uid("2024-05-06T07:08:09.000+00:00", "member", "G1", "", "G1")
+        == migrated_uid(
+            "2024-05-06T07:08:09.000+00:00",
+            "member",
+            "G1",
+            "",
+            "G1",
+            made_by("2024-05-06T07:08:10", "ann", json.dumps(member())),
+        )
     )
     assert len(uids[0]["S1"]) == 32 and uids[0]["S1"] != uids[0]["G1"]
     assert (tmp_path / "a.asf.v2.bak").exists()
